@@ -1,0 +1,31 @@
+// @ts-check
+import { defineConfig } from 'astro/config';
+import node from '@astrojs/node';
+import react from '@astrojs/react';
+import tailwindcss from '@tailwindcss/vite';
+
+const publicUrl = new URL(process.env.PUBLIC_BASE_URL ?? 'http://127.0.0.1:4321');
+
+/**
+ * Host names the server answers for. Without them Astro takes every request to come from
+ * "localhost", and its same-origin check refuses the site's own forms. Read at build time.
+ */
+const allowedHosts = new Set(['127.0.0.1', 'localhost', publicUrl.hostname]);
+for (const host of (process.env.LAGWISE_ALLOWED_HOSTS ?? '').split(',')) if (host.trim()) allowedHosts.add(host.trim());
+
+// Pages are prerendered unless they opt out with `export const prerender = false`;
+// endpoints under src/pages/api opt out and run on demand in the standalone server.
+export default defineConfig({
+  site: publicUrl.origin,
+  output: 'static',
+  adapter: node({ mode: 'standalone' }),
+  integrations: [react()],
+  server: {
+    host: process.env.HOST ?? '127.0.0.1',
+    port: Number(process.env.PORT ?? 4321),
+  },
+  security: { checkOrigin: true, allowedDomains: [...allowedHosts].map((hostname) => ({ hostname })) },
+  vite: {
+    plugins: [tailwindcss()],
+  },
+});

@@ -1,0 +1,179 @@
+/**
+ * A private PostgreSQL cluster for one profile: found (or installed from Debian's packages),
+ * initialised in the profile's git-ignored folder, listening on 127.0.0.1 only.
+ */
+import { execFileSync, spawnSync } from 'node:child_process';
+import { chownSync, existsSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import pg from 'pg';
+import type { StackConfig } from './config.ts';
+import type { Supervisor } from './supervisor.ts';
+import { aptInstall, canInstallPackages } from './debian.ts';
+
+const isRoot = process.getuid?.() === 0;
+
+export class StackError extends Error {}
+
+function findBinDir(): string | undefined {
+  const base = '/usr/lib/postgresql';
+  if (existsSync(base)) {
+    const versions = readdirSync(base)
+      .filter((v) => existsSync(path.join(base, v, 'bin', 'initdb')))
+      .sort((a, b) => Number(b) - Number(a));
+    if (versions[0]) return path.join(base, versions[0], 'bin');
+  }
+  const onPath = spawnSync('sh', ['-c', 'command -v initdb'], { encoding: 'utf8' });
+  return onPath.status === 0 ? path.dirname(onPath.stdout.trim()) : undefined;
+}
+
+/** The folder holding initdb, postgres and pg_ctl, installing the Debian package if allowed. */
+export function ensurePostgresInstalled(): string {
+  const found = findBinDir();
+  if (found) return found;
+  if (canInstallPackages()) {
+    console.log('[lagwise] PostgreSQL server not found; installing the Debian package "postgresql"…');
+    if (aptInstall('postgresql')) {
+      const installed = findBinDir();
+      if (installed) return installed;
+    }
+  }
+  throw new StackError(
+    'The PostgreSQL server is not installed. Install it (on Debian or Ubuntu: `sudo apt-get install postgresql`) and run the command again.',
+  );
+}
+
+/** Runs a PostgreSQL program as the cluster's owner: `postgres` when we are root (initdb refuses root). */
+function asOwner(bin: string, args: string[]): [string, string[]] {
+  return isRoot ? ['runuser', ['-u', 'postgres', '--', bin, ...args]] : [bin, args];
+}
+
+function chownToPostgres(target: string): void {
+  if (!isRoot) return;
+  const uid = Number(execFileSync('id', ['-u', 'postgres'], { encoding: 'utf8' }).trim());
+  const gid = Number(execFileSync('id', ['-g', 'postgres'], { encoding: 'utf8' }).trim());
+  chownSync(target, uid, gid);
+}
+
+export function clusterDir(config: StackConfig): string {
+  return path.join(config.stateDir, 'pg');
+}
+
+export function initCluster(binDir: string, config: StackConfig): void {
+  const dataDir = clusterDir(config);
+  if (existsSync(path.join(dataDir, 'PG_VERSION'))) return;
+  rmSync(dataDir, { recursive: true, force: true });
+  mkdirSync(dataDir, { recursive: true, mode: 0o700 });
+  chownToPostgres(dataDir);
+  if (isRoot && spawnSync('runuser', ['-u', 'postgres', '--', 'test', '-w', dataDir]).status !== 0) {
+    throw new StackError(
+      `The "postgres" system user cannot reach ${dataDir}: a parent folder is closed to other users. ` +
+        'Set LAGWISE_STATE_DIR to a folder it can reach (for example /var/tmp/lagwise) or clone the project outside /root.',
+    );
+  }
+  const pwFile = path.join(config.stateDir, 'pg-password');
+  writeFileSync(pwFile, config.secrets.pgPassword, { mode: 0o600 });
+  chownToPostgres(pwFile);
+  const [cmd, args] = asOwner(path.join(binDir, 'initdb'), [
+    '-D', dataDir, '-U', 'lagwise', `--pwfile=${pwFile}`, '--auth=scram-sha-256',
+    '-E', 'UTF8', '--locale=C.UTF-8', '--no-sync',
+  ]);
+  const result = spawnSync(cmd, args, { encoding: 'utf8' });
+  rmSync(pwFile, { force: true });
+  if (result.status !== 0) {
+    throw new StackError(`initdb failed for ${dataDir}:\n${result.stderr || result.stdout}`);
+  }
+  const settings = [
+    '',
+    '# Lagwise: private cluster, loopback only; the port is given at start.',
+    "listen_addresses = '127.0.0.1'",
+    `unix_socket_directories = '${dataDir}'`,
+    'max_connections = 100',
+    ...(config.profile === 'test' ? ['fsync = off', 'synchronous_commit = off', 'full_page_writes = off'] : []),
+  ];
+  const conf = path.join(dataDir, 'postgresql.conf');
+  writeFileSync(conf, readFileSync(conf, 'utf8') + settings.join('\n') + '\n');
+}
+
+/** A cluster left running by a stack that was killed rather than stopped. */
+function runningPostmasterPid(dataDir: string): number | undefined {
+  const pidFile = path.join(dataDir, 'postmaster.pid');
+  if (!existsSync(pidFile)) return undefined;
+  const pid = Number(readFileSync(pidFile, 'utf8').split('\n')[0]);
+  try {
+    process.kill(pid, 0);
+    return pid;
+  } catch {
+    return undefined;
+  }
+}
+
+export async function startPostgres(binDir: string, config: StackConfig, supervisor: Supervisor): Promise<void> {
+  const dataDir = clusterDir(config);
+  const leftover = runningPostmasterPid(dataDir);
+  if (leftover !== undefined) {
+    if (config.profile !== 'test') {
+      throw new StackError(
+        `PostgreSQL for this project is already running (pid ${leftover}, data in ${dataDir}). ` +
+          'Is another `npm start` open? Stop it with Ctrl-C first, or stop the leftover with `npm run stop-db`.',
+      );
+    }
+    stopLeftoverCluster(binDir, config);
+  }
+  const [cmd, args] = asOwner(path.join(binDir, 'postgres'), ['-D', dataDir, '-p', String(config.pgPort)]);
+  const logFile = path.join(config.stateDir, 'postgres.log');
+  const child = supervisor.start({ name: 'postgres', command: cmd, args, logFile, stopSignal: 'SIGINT' });
+  await waitForPostgres(config, () => child.exitCode !== null, logFile);
+}
+
+export function stopLeftoverCluster(binDir: string, config: StackConfig): void {
+  const dataDir = clusterDir(config);
+  if (runningPostmasterPid(dataDir) === undefined) return;
+  const [cmd, args] = asOwner(path.join(binDir, 'pg_ctl'), ['-D', dataDir, '-m', 'fast', '-w', 'stop']);
+  spawnSync(cmd, args, { stdio: 'ignore' });
+}
+
+async function waitForPostgres(config: StackConfig, hasExited: () => boolean, logFile: string): Promise<void> {
+  const deadline = Date.now() + 30_000;
+  for (;;) {
+    const client = new pg.Client(adminConnection(config));
+    try {
+      await client.connect();
+      await client.end();
+      return;
+    } catch (error) {
+      await client.end().catch(() => {});
+      if (hasExited() || Date.now() > deadline) {
+        const tail = existsSync(logFile) ? readFileSync(logFile, 'utf8').split('\n').slice(-12).join('\n') : '';
+        throw new StackError(
+          `PostgreSQL did not come up on 127.0.0.1:${config.pgPort} (${(error as Error).message}). ` +
+            `Is the port taken? Set ${config.profile === 'test' ? 'LAGWISE_TEST_PG_PORT' : 'LAGWISE_PG_PORT'} to another. Log:\n${tail}`,
+        );
+      }
+      await new Promise((r) => setTimeout(r, 150));
+    }
+  }
+}
+
+function adminConnection(config: StackConfig): pg.ClientConfig {
+  return {
+    host: '127.0.0.1',
+    port: config.pgPort,
+    user: 'lagwise',
+    password: config.secrets.pgPassword,
+    database: 'postgres',
+  };
+}
+
+/** Creates the profile's database; `fresh` drops it first (the test profile starts empty each run). */
+export async function ensureDatabase(config: StackConfig, { fresh }: { fresh: boolean }): Promise<void> {
+  const client = new pg.Client(adminConnection(config));
+  await client.connect();
+  try {
+    const name = pg.escapeIdentifier(config.databaseName);
+    if (fresh) await client.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
+    const { rowCount } = await client.query('SELECT 1 FROM pg_database WHERE datname = $1', [config.databaseName]);
+    if (!rowCount) await client.query(`CREATE DATABASE ${name}`);
+  } finally {
+    await client.end();
+  }
+}

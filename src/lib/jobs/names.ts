@@ -1,0 +1,29 @@
+/** The queues Lagwise uses and what each job carries. Jobs carry ids and data, never HTML. */
+import type { OutgoingEmail } from '../email/messages';
+
+export const jobNames = {
+  /** Render one e-mail and hand it to the mail service; retried until it is accepted. */
+  sendEmail: 'email-send',
+  /** Mint the owner's sign-in link for a new assessment and mail the confirmation. */
+  confirmSubmission: 'submission-confirm',
+  /** Tell the consultants of the assessment's region that a lead is waiting. */
+  alertConsultants: 'consultants-alert',
+} as const;
+
+export type JobName = (typeof jobNames)[keyof typeof jobNames];
+
+export interface JobPayloads {
+  'email-send': { email: OutgoingEmail };
+  'submission-confirm': { assessmentId: string };
+  'consultants-alert': { assessmentId: string };
+}
+
+/** Retry policy per queue: mail keeps trying for hours so an outage delays and loses nothing. */
+export function queuePolicies(retryDelaySeconds: number) {
+  const patient = { retryLimit: 14, retryDelay: retryDelaySeconds, retryBackoff: true, retentionDays: 14 };
+  return {
+    'email-send': patient,
+    'submission-confirm': patient,
+    'consultants-alert': patient,
+  } satisfies Record<JobName, object>;
+}

@@ -1,0 +1,40 @@
+import { execFileSync } from 'node:child_process';
+import { cpSync, mkdtempSync, readdirSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import pg from 'pg';
+import { afterAll, describe, expect, it } from 'vitest';
+import { stack } from '../support/stack';
+
+describe('migrations', () => {
+  const scratch = mkdtempSync(path.join(tmpdir(), 'lagwise-drizzle-'));
+  afterAll(() => rmSync(scratch, { recursive: true, force: true }));
+
+  it('match the schema module: regenerating from it writes nothing new', () => {
+    cpSync('drizzle', scratch, { recursive: true });
+    const before = readdirSync(scratch).sort();
+    execFileSync(
+      'node_modules/.bin/drizzle-kit',
+      ['generate', '--dialect', 'postgresql', '--schema', './src/db/schema.ts', '--out', scratch, '--name', 'drift'],
+      { encoding: 'utf8', stdio: 'pipe' },
+    );
+    expect(readdirSync(scratch).sort()).toEqual(before);
+  });
+
+  it('have been applied to the test database', async () => {
+    const client = new pg.Client({ connectionString: stack.databaseUrl });
+    await client.connect();
+    try {
+      const { rows } = await client.query<{ table_name: string }>(
+        "select table_name from information_schema.tables where table_schema = 'public' order by table_name",
+      );
+      expect(rows.map((r) => r.table_name)).toEqual(
+        expect.arrayContaining(['regions', 'region_postal_prefixes', 'assessments', 'pipe_runs', 'activity_log', 'user', 'session']),
+      );
+      const queues = await client.query<{ name: string }>('select name from pgboss.queue order by name');
+      expect(queues.rows.map((r) => r.name)).toEqual(['consultants-alert', 'email-send', 'submission-confirm']);
+    } finally {
+      await client.end();
+    }
+  });
+});
