@@ -1,0 +1,44 @@
+/** How well an input is known; sets the spread of its low–high range. */
+export type Confidence = 'measured' | 'estimated' | 'guessed';
+
+/**
+ * Relative half-width of the range for each confidence — common practice (our own
+ * choice for self-assessment inputs): measured ±5 %, estimated ±20 %, guessed ±50 %.
+ */
+export const CONFIDENCE_SPREADS: Readonly<Record<Confidence, number>> = {
+  measured: 0.05,
+  estimated: 0.2,
+  guessed: 0.5,
+};
+
+/**
+ * Seeded pseudo-random numbers in [0, 1): mulberry32 (Tommy Ettinger, public
+ * domain), small and fast, so a range is reproducible from its seed.
+ */
+export function mulberry32(seed: number): () => number {
+  let state = seed >>> 0;
+  return () => {
+    state = (state + 0x6d2b79f5) >>> 0;
+    let t = state;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+/** A symmetric triangular multiplier on [1 − s, 1 + s] with mode 1, from a uniform u. */
+export function triangularFactor(spread: number, u: number): number {
+  const offset = u < 0.5 ? Math.sqrt(2 * u) - 1 : 1 - Math.sqrt(2 * (1 - u));
+  return 1 + spread * offset;
+}
+
+/** Value at quantile p (0–1) of a sorted array, linear between order statistics. */
+export function quantileSorted(sorted: Float64Array, p: number): number {
+  const n = sorted.length;
+  if (n === 0) return Number.NaN;
+  const position = p * (n - 1);
+  const lower = Math.floor(position);
+  const upper = Math.min(n - 1, lower + 1);
+  const w = position - lower;
+  return (sorted[lower] as number) * (1 - w) + (sorted[upper] as number) * w;
+}
