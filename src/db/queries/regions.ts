@@ -1,0 +1,28 @@
+import { and, desc, eq, inArray, sql } from 'drizzle-orm';
+import type { Executor } from '../client';
+import { regionPostalPrefixes, regions } from '../schema';
+import { prefixCandidates } from '../../lib/routing/postal-code';
+
+export interface RegionMatch {
+  regionId: string;
+  regionName: string;
+  prefix: string;
+}
+
+/** The region whose prefix is the longest leading part of the code; none when nothing matches. */
+export async function findRegionForPostalCode(
+  db: Executor,
+  countryCode: string,
+  routingKey: string,
+): Promise<RegionMatch | null> {
+  const candidates = prefixCandidates(routingKey);
+  if (candidates.length === 0) return null;
+  const [match] = await db
+    .select({ regionId: regions.id, regionName: regions.name, prefix: regionPostalPrefixes.prefix })
+    .from(regionPostalPrefixes)
+    .innerJoin(regions, eq(regions.id, regionPostalPrefixes.regionId))
+    .where(and(eq(regionPostalPrefixes.countryCode, countryCode), inArray(regionPostalPrefixes.prefix, candidates)))
+    .orderBy(desc(sql`length(${regionPostalPrefixes.prefix})`))
+    .limit(1);
+  return match ?? null;
+}

@@ -1,0 +1,142 @@
+/**
+ * The wrapper every endpoint goes through: parse with zod → 400 listing each issue with its
+ * field path; no user → 401; no permission → 403; known domain and engine errors → their
+ * status; anything else is logged and answered without internals.
+ */
+import type { APIContext, APIRoute } from 'astro';
+import { z } from 'zod';
+import { isEngineError } from './engine';
+import { describeForLog, isDatabaseUnavailable } from '../db/errors';
+import { DomainError, type DomainErrorCode } from './errors';
+import { can, type Resource } from './permissions';
+
+export interface Issue {
+  path: string;
+  message: string;
+}
+
+export interface ErrorBody {
+  error: { code: string; message: string; issues?: Issue[] };
+}
+
+const domainStatus: Record<DomainErrorCode, number> = {
+  NOT_FOUND: 404,
+  ALREADY_CLAIMED: 409,
+  INVALID_TRANSITION: 409,
+  CONFLICT: 409,
+  UNPROCESSABLE: 422,
+  RATE_LIMITED: 429,
+  FORBIDDEN: 403,
+  UPLOAD_REFUSED: 400,
+  PAYLOAD_TOO_LARGE: 413,
+  SERVICE_UNAVAILABLE: 503,
+};
+
+export function json(body: unknown, status = 200, headers: HeadersInit = {}): Response {
+  return new Response(JSON.stringify(body), {
+    status,
+    headers: { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store', ...headers },
+  });
+}
+
+export function errorResponse(status: number, code: string, message: string, issues?: Issue[]): Response {
+  const body: ErrorBody = { error: { code, message, ...(issues ? { issues } : {}) } };
+  return json(body, status);
+}
+
+/** zod issues as `{ path: "runs.2.lengthM", message }`, the shape every 400 carries. */
+export function issuesOf(error: z.ZodError): Issue[] {
+  return error.issues.map((issue) => ({
+    path: issue.path.map(String).join('.') || '(body)',
+    message: issue.message,
+  }));
+}
+
+export function validationFailed(issues: Issue[]): Response {
+  const first = issues[0];
+  const summary = first ? `${first.path}: ${first.message}` : 'The request was not valid.';
+  return errorResponse(400, 'VALIDATION_FAILED', summary, issues);
+}
+
+/** Thrown inside handlers to answer with a prepared response (e.g. a 400 from a nested parse). */
+export class HttpResponseError extends Error {
+  constructor(readonly response: Response) {
+    super('http response');
+  }
+}
+
+const MAX_JSON_BYTES = 1_000_000;
+
+/** Reads and parses a JSON body against a schema, or throws the 400/413 to answer with. */
+export async function parseJsonBody<S extends z.ZodType>(request: Request, schema: S): Promise<z.output<S>> {
+  const type = request.headers.get('content-type') ?? '';
+  if (!type.toLowerCase().includes('application/json')) {
+    throw new HttpResponseError(
+      errorResponse(415, 'UNSUPPORTED_MEDIA_TYPE', 'Send the body as JSON with the header Content-Type: application/json.'),
+    );
+  }
+  const text = await request.text();
+  if (Buffer.byteLength(text) > MAX_JSON_BYTES) {
+    throw new HttpResponseError(errorResponse(413, 'PAYLOAD_TOO_LARGE', 'The request body is over 1 MB; send fewer or smaller items.'));
+  }
+  let raw: unknown;
+  try {
+    raw = JSON.parse(text);
+  } catch {
+    throw new HttpResponseError(validationFailed([{ path: '(body)', message: 'The body is not valid JSON.' }]));
+  }
+  return parseValue(schema, raw);
+}
+
+export function parseValue<S extends z.ZodType>(schema: S, raw: unknown): z.output<S> {
+  const parsed = schema.safeParse(raw);
+  if (!parsed.success) throw new HttpResponseError(validationFailed(issuesOf(parsed.error)));
+  return parsed.data;
+}
+
+/** Maps what a handler threw to the response the caller gets. */
+export function responseForError(error: unknown, context: { method: string; path: string }): Response {
+  if (error instanceof HttpResponseError) return error.response;
+  if (error instanceof DomainError) {
+    const issues = error.field ? [{ path: error.field, message: error.message }] : undefined;
+    return errorResponse(domainStatus[error.code], error.code, error.message, issues);
+  }
+  if (isEngineError(error)) {
+    const issues = error.issues.length
+      ? error.issues.map((i) => ({ path: i.path.map(String).join('.') || '(body)', message: i.message }))
+      : undefined;
+    return errorResponse(error.code === 'INVALID_INPUT' ? 400 : 422, error.code, error.message, issues);
+  }
+  if (isDatabaseUnavailable(error)) {
+    console.error(`[http] ${context.method} ${context.path}: database unavailable: ${describeForLog(error)}`);
+    return errorResponse(503, 'SERVICE_UNAVAILABLE', 'The service is briefly unavailable; please try again in a minute.');
+  }
+  console.error(`[http] ${context.method} ${context.path} failed: ${describeForLog(error)}`);
+  return errorResponse(500, 'INTERNAL', 'Something went wrong on our side; nothing was changed. Please try again.');
+}
+
+export interface Guard<R extends Resource = Resource> {
+  resource: R;
+  action: string;
+}
+
+/** Wraps a handler: catches and maps errors, and checks sign-in and permission when asked. */
+export function endpoint(
+  handler: (context: APIContext) => Promise<Response> | Response,
+  guard?: { resource: Resource; action: string },
+): APIRoute {
+  return async (context) => {
+    try {
+      if (guard) {
+        const user = context.locals.user;
+        if (!user) return errorResponse(401, 'UNAUTHENTICATED', 'Sign in first.');
+        if (!can(user.role, guard.resource, guard.action as never)) {
+          return errorResponse(403, 'FORBIDDEN', 'Your account may not do this.');
+        }
+      }
+      return await handler(context);
+    } catch (error) {
+      return responseForError(error, { method: context.request.method, path: context.url.pathname });
+    }
+  };
+}

@@ -1,0 +1,86 @@
+/**
+ * The contract of a submitted assessment, shared by the estimate form (its resolver) and
+ * POST /api/assessments. The estimate itself is the engine's own PlantInput schema.
+ */
+import { z } from 'zod';
+import { plantInputSchema } from '../lib/engine';
+import { countryCodes, isCountryCode, normalisePostalCode, postalFormats } from '../lib/routing/postal-code';
+
+export const plantTypes = [
+  { id: 'creamery', name: 'Creamery or dairy' },
+  { id: 'brewery', name: 'Brewery or distillery' },
+  { id: 'smokehouse', name: 'Smokehouse or meat plant' },
+  { id: 'bakery', name: 'Bakery' },
+  { id: 'sauce-kitchen', name: 'Soup or sauce kitchen' },
+  { id: 'juice-plant', name: 'Juice or beverage plant' },
+  { id: 'tofu-plant', name: 'Tofu or soy plant' },
+  { id: 'other-food', name: 'Other food plant' },
+] as const;
+export type PlantTypeId = (typeof plantTypes)[number]['id'];
+const plantTypeIds = plantTypes.map((t) => t.id) as [PlantTypeId, ...PlantTypeId[]];
+
+export const countryOptions = countryCodes.map((code) => ({ code, name: postalFormats[code].name }));
+
+/** Where the plant is and what it makes: routing reads the country and postal code. */
+export const plantDetailsSchema = z
+  .object({
+    plantName: z.string().trim().max(120, { error: 'Keep the plant name under 120 characters.' }).optional(),
+    plantType: z.enum(plantTypeIds, { error: 'Choose the kind of plant from the list.' }),
+    countryCode: z
+      .string({ error: 'Choose the country the plant is in.' })
+      .refine(isCountryCode, { error: `Choose the country from the list (${countryCodes.join(', ')}).` }),
+    postalCode: z
+      .string({ error: 'Enter the plant’s postal code.' })
+      .trim()
+      .min(1, { error: 'Enter the plant’s postal code.' })
+      .max(16, { error: 'A postal code is at most 16 characters.' }),
+  })
+  .superRefine((plant, ctx) => {
+    if (!isCountryCode(plant.countryCode)) return;
+    const normalised = normalisePostalCode(plant.countryCode, plant.postalCode);
+    if (!normalised.ok) ctx.addIssue({ code: 'custom', path: ['postalCode'], message: normalised.message });
+  });
+
+/** Who to contact; only the consultant who claims the assessment ever sees this. */
+export const contactSchema = z.object({
+  name: z
+    .string({ error: 'Enter your name.' })
+    .trim()
+    .min(1, { error: 'Enter your name.' })
+    .max(120, { error: 'Keep your name under 120 characters.' }),
+  company: z
+    .string({ error: 'Enter the company or plant name.' })
+    .trim()
+    .min(1, { error: 'Enter the company or plant name.' })
+    .max(160, { error: 'Keep the company name under 160 characters.' }),
+  email: z
+    .string({ error: 'Enter your e-mail address.' })
+    .trim()
+    .toLowerCase()
+    .pipe(z.email({ error: 'Enter an e-mail address like name@plant.com.' }))
+    .pipe(z.string().max(254, { error: 'An e-mail address is at most 254 characters.' })),
+  phone: z
+    .string()
+    .trim()
+    .max(40, { error: 'Keep the phone number under 40 characters.' })
+    .regex(/^[+()\d\s.\-]*$/, { error: 'A phone number may hold digits, spaces, + ( ) . and - only.' })
+    .optional()
+    .transform((value) => (value ? value : undefined)),
+});
+
+export const createAssessmentSchema = z.object({
+  contact: contactSchema,
+  consent: z.literal(true, { error: 'Tick the box to let a consultant covering your region contact you.' }),
+  plant: plantDetailsSchema,
+  estimate: plantInputSchema,
+  /** A field people never see; bots fill it. Anything in it marks the submission as spam. */
+  website: z.string().max(500).optional(),
+});
+
+export type CreateAssessmentInput = z.input<typeof createAssessmentSchema>;
+export type CreateAssessment = z.output<typeof createAssessmentSchema>;
+
+/** Where a run's photos go in the multipart body: `photos.<runId>`; plant-wide photos as `photos`. */
+export const PHOTO_FIELD = 'photos';
+export const MAX_PHOTOS = 12;
+export const MAX_PHOTO_BYTES = 10 * 1024 * 1024;
