@@ -1,0 +1,82 @@
+/**
+ * Turns an OutgoingEmail (data) into subject, HTML and text: loads what the template needs
+ * from the database, formats the figures, renders the React Email template.
+ */
+import { render } from '@react-email/components';
+import { createElement, type ReactElement } from 'react';
+import { getDb } from '../../db/client';
+import { getAssessmentForMail } from '../../db/queries/assessments';
+import { plantTypes } from '../../schemas/assessment';
+import { serviceDefaults, type PlantResult, type ServiceId } from '../engine';
+import { formatMoney, formatYears } from '../format';
+import { appBaseUrl } from '../site';
+import type { RenderedEmail } from './mailer';
+import type { OutgoingEmail } from './messages';
+import { ConsultantAlert, consultantAlertSubject } from './templates/ConsultantAlert';
+import { SignInLink, signInLinkSubject } from './templates/SignInLink';
+import { SubmissionConfirmation, submissionConfirmationSubject } from './templates/SubmissionConfirmation';
+
+async function both(element: ReactElement): Promise<{ html: string; text: string }> {
+  const [html, text] = await Promise.all([render(element), render(element, { plainText: true })]);
+  return { html, text };
+}
+
+/** A permanent failure: retrying cannot help (the assessment is gone). */
+export class NothingToSend extends Error {}
+
+async function loadAssessment(assessmentId: string) {
+  const found = await getAssessmentForMail(getDb(), assessmentId);
+  if (!found) throw new NothingToSend(`assessment ${assessmentId} no longer exists`);
+  const result = found.resultSnapshot as PlantResult;
+  const money = (amount: number) => formatMoney(amount, result.currency);
+  const hazardCount = result.runs.filter((run) => run.hazards.length > 0).length;
+  return { found, result, money, hazardCount };
+}
+
+function plantTypeName(id: string): string {
+  return plantTypes.find((t) => t.id === id)?.name ?? 'Food plant';
+}
+
+export async function renderEmail(email: OutgoingEmail): Promise<RenderedEmail> {
+  switch (email.template) {
+    case 'sign-in-link':
+      return { to: email.to, subject: signInLinkSubject, ...(await both(createElement(SignInLink, email.props))) };
+    case 'submission-confirmation': {
+      const { found, result, money, hazardCount } = await loadAssessment(email.props.assessmentId);
+      const cost = result.range.currentAnnualCost;
+      const element = createElement(SubmissionConfirmation, {
+        contactName: found.contactName,
+        reference: found.reference,
+        plantLabel: found.plantName || found.companyName,
+        runCount: found.runs.length,
+        signInUrl: email.props.signInUrl,
+        signInPageUrl: `${appBaseUrl()}/sign-in`,
+        regionName: found.regionName,
+        postalCode: found.postalCode,
+        annualCost: { likely: money(cost.likely), low: money(cost.low), high: money(cost.high) },
+        annualSaving: money(result.totals.savings.annualCost),
+        payback: formatYears(result.totals.simplePaybackYears),
+        hazardCount,
+      });
+      return { to: email.to, subject: submissionConfirmationSubject(found.reference), ...(await both(element)) };
+    }
+    case 'consultant-alert': {
+      const { found, result, money, hazardCount } = await loadAssessment(email.props.assessmentId);
+      const services = [...new Set(found.runs.map((run) => serviceDefaults(run.service as ServiceId).name.toLowerCase()))];
+      const props = {
+        consultantName: email.props.consultantName,
+        reference: found.reference,
+        regionName: found.regionName ?? 'your region',
+        plantType: plantTypeName(found.plantType),
+        area: `${found.postalCodeNormalised.slice(0, 3)} (${found.countryCode})`,
+        runCount: found.runs.length,
+        services: services.join(', '),
+        annualCost: money(result.totals.current.annualCost),
+        annualSaving: money(result.totals.savings.annualCost),
+        hazardCount,
+        claimUrl: `${appBaseUrl()}/sign-in`,
+      };
+      return { to: email.to, subject: consultantAlertSubject(props), ...(await both(createElement(ConsultantAlert, props))) };
+    }
+  }
+}

@@ -1,0 +1,72 @@
+/** What each queue's job does. The worker runs these; tests can call them directly. */
+import type PgBoss from 'pg-boss';
+import { getDb } from '../../db/client';
+import { getAssessmentForMail } from '../../db/queries/assessments';
+import { listRegionConsultants } from '../../db/queries/consultants';
+import { inTransaction } from '../../db/transaction';
+import { getAuth } from '../auth';
+import { sendEmail } from '../email/mailer';
+import { NothingToSend, renderEmail } from '../email/render';
+import type { SubmissionLinkMetadata } from '../sign-in-links';
+import { enqueue, jobNames } from './queue';
+import type { JobName, JobPayloads } from './names';
+
+type Handler<N extends JobName> = (job: PgBoss.Job<JobPayloads[N]>) => Promise<void>;
+
+/** Logs and swallows a job that can never succeed, so it is not retried for hours. */
+async function unlessGone(work: () => Promise<void>): Promise<void> {
+  try {
+    await work();
+  } catch (error) {
+    if (error instanceof NothingToSend) {
+      console.warn(`[worker] dropped: ${error.message}`);
+      return;
+    }
+    throw error;
+  }
+}
+
+export const jobHandlers: { [N in JobName]: Handler<N> } = {
+  'email-send': (job) =>
+    unlessGone(async () => {
+      const rendered = await renderEmail(job.data.email);
+      // The job id is stable across retries, so the mail service stores the message once.
+      await sendEmail(rendered, `lagwise-${job.id}`);
+    }),
+
+  'submission-confirm': (job) =>
+    unlessGone(async () => {
+      const assessment = await getAssessmentForMail(getDb(), job.data.assessmentId);
+      if (!assessment) throw new NothingToSend(`assessment ${job.data.assessmentId} no longer exists`);
+      const metadata: SubmissionLinkMetadata = { purpose: 'submission-confirmation', assessmentId: assessment.id };
+      // better-auth mints the sign-in link and hands it to deliverSignInLink, which queues the mail.
+      await getAuth().api.signInMagicLink({
+        body: { email: assessment.contactEmail, callbackURL: `/my/assessments/${assessment.id}`, metadata: { ...metadata } },
+        headers: new Headers(),
+      });
+    }),
+
+  'consultants-alert': (job) =>
+    unlessGone(async () => {
+      const assessment = await getAssessmentForMail(getDb(), job.data.assessmentId);
+      if (!assessment) throw new NothingToSend(`assessment ${job.data.assessmentId} no longer exists`);
+      if (!assessment.regionId) return;
+      const consultants = await listRegionConsultants(getDb(), assessment.regionId);
+      // One transaction: a retry after a crash queues every alert again or none twice.
+      await inTransaction(async (_tx, sqlRunner) => {
+        for (const consultant of consultants) {
+          await enqueue(
+            jobNames.sendEmail,
+            {
+              email: {
+                template: 'consultant-alert',
+                to: consultant.email,
+                props: { assessmentId: assessment.id, consultantName: consultant.name },
+              },
+            },
+            { sqlRunner },
+          );
+        }
+      });
+    }),
+};
