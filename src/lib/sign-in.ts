@@ -1,0 +1,56 @@
+/**
+ * Signing in from plain HTML forms (no JavaScript needed): an e-mailed link for owners,
+ * e-mail and password for consultants and admins. better-auth does the work.
+ */
+import { eq } from 'drizzle-orm';
+import { z } from 'zod';
+import { getDb } from '../db/client';
+import { hitRateLimit } from '../db/queries/rate-limits';
+import { user } from '../db/schema';
+import { getAuth } from './auth';
+
+/** Only local paths, so a crafted link cannot send someone to another site after sign-in. */
+export const nextPathSchema = z
+  .string()
+  .regex(/^\/(?!\/)[A-Za-z0-9\-._~/?=&%]*$/)
+  .max(300)
+  .catch('/my/assessments');
+
+export const linkRequestSchema = z.object({
+  email: z
+    .string({ error: 'Enter your e-mail address.' })
+    .trim()
+    .toLowerCase()
+    .pipe(z.email({ error: 'Enter an e-mail address like name@plant.com.' })),
+  next: nextPathSchema.optional(),
+});
+
+export const passwordSignInSchema = z.object({
+  email: z
+    .string({ error: 'Enter your e-mail address.' })
+    .trim()
+    .toLowerCase()
+    .pipe(z.email({ error: 'Enter an e-mail address like name@firm.com.' })),
+  password: z.string({ error: 'Enter your password.' }).min(1, { error: 'Enter your password.' }).max(200),
+});
+
+/**
+ * Mails a sign-in link when the address has an account. The answer is the same either way,
+ * so the form cannot be used to find out who has submitted an assessment.
+ */
+export async function requestSignInLink(email: string, nextPath: string, clientAddress: string): Promise<'sent' | 'limited'> {
+  const db = getDb();
+  const perAddress = await hitRateLimit(db, `sign-in-link:address:${clientAddress}`, { limit: 20, windowSeconds: 3600 });
+  const perEmail = await hitRateLimit(db, `sign-in-link:email:${email}`, { limit: 5, windowSeconds: 3600 });
+  if (!perAddress.allowed || !perEmail.allowed) return 'limited';
+  const [account] = await db.select({ id: user.id, banned: user.banned }).from(user).where(eq(user.email, email));
+  if (account && !account.banned) {
+    await getAuth().api.signInMagicLink({ body: { email, callbackURL: nextPath }, headers: new Headers() });
+  }
+  return 'sent';
+}
+
+/** The page a role lands on after signing in. */
+export function homeFor(role: string | null | undefined): string {
+  return role === 'owner' || !role ? '/my/assessments' : '/account';
+}
