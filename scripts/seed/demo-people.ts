@@ -1,0 +1,80 @@
+/**
+ * The demo's people and territories: an invented scenario of our own (no real firms or
+ * persons). Postal-code prefixes follow each country's real format so routing can be tried.
+ */
+export const DEMO_PASSWORD = 'lagwise-demo-2026';
+
+export interface DemoRegion {
+  slug: string;
+  name: string;
+  countryCode: string;
+  prefixes: string[];
+}
+
+export const demoRegions: DemoRegion[] = [
+  { slug: 'cascade-foothills', name: 'Cascade Foothills', countryCode: 'US', prefixes: ['970', '971', '972', '973'] },
+  { slug: 'lakeshore-north', name: 'Lakeshore North', countryCode: 'US', prefixes: ['480', '481', '482', '483', '484'] },
+  { slug: 'green-mountain-upper-hudson', name: 'Green Mountain & Upper Hudson', countryCode: 'US', prefixes: ['05', '120', '121', '122', '128'] },
+  { slug: 'lake-ontario-west', name: 'Lake Ontario West', countryCode: 'CA', prefixes: ['L', 'M'] },
+  { slug: 'niagara-bench', name: 'Niagara Bench', countryCode: 'CA', prefixes: ['L2', 'L3'] },
+  { slug: 'dales-and-moors', name: 'Dales and Moors', countryCode: 'GB', prefixes: ['HG', 'YO', 'DL', 'BD'] },
+];
+
+export interface DemoAccount {
+  email: string;
+  name: string;
+  role: 'admin' | 'consultant' | 'owner';
+  company?: string;
+  regions?: string[];
+}
+
+export const demoAccounts: DemoAccount[] = [
+  { email: 'admin@lagwise.example', name: 'Rosa Delacroix', role: 'admin' },
+  {
+    email: 'marisol@quintero-thermal.example',
+    name: 'Marisol Quintero',
+    role: 'consultant',
+    company: 'Quintero Thermal Works',
+    regions: ['cascade-foothills'],
+  },
+  {
+    email: 'anders@kvale-insulation.example',
+    name: 'Anders Kvale',
+    role: 'consultant',
+    company: 'Kvale Mechanical Insulation',
+    regions: ['cascade-foothills'],
+  },
+  {
+    email: 'tobias@wendt-energy.example',
+    name: 'Tobias Wendt',
+    role: 'consultant',
+    company: 'Wendt Pipe & Energy',
+    regions: ['lakeshore-north'],
+  },
+  {
+    email: 'declan@hollis-lagging.example',
+    name: 'Declan Hollis',
+    role: 'consultant',
+    company: 'Hollis Lagging Co.',
+    regions: ['green-mountain-upper-hudson'],
+  },
+  {
+    email: 'priya@raman-audits.example',
+    name: 'Priya Raman',
+    role: 'consultant',
+    company: 'Raman Energy Audits',
+    regions: ['lake-ontario-west', 'niagara-bench'],
+  },
+  {
+    email: 'ffion@baird-insulation.example',
+    name: 'Ffion Baird',
+    role: 'consultant',
+    company: 'Baird Insulation Services',
+    regions: ['dales-and-moors'],
+  },
+];
+
+/** Lines for the start command's banner. */
+export function demoSignInLines(): string[] {
+  return demoAccounts.map((a) => `${a.role.padEnd(11)} ${a.email.padEnd(36)} ${a.name}${a.company ? `, ${a.company}` : ''}`);
+}
