@@ -20,7 +20,8 @@ boss.on('error', (error) => console.error('[worker]', error.message));
 await boss.start();
 
 for (const [queue, handle] of Object.entries(jobHandlers)) {
-  await boss.work(queue, { pollingIntervalSeconds, batchSize: 1 }, async (jobs) => {
+  let workerId = '';
+  workerId = await boss.work(queue, { pollingIntervalSeconds, batchSize: 1 }, async (jobs) => {
     for (const job of jobs) {
       try {
         await handle(job as never);
@@ -29,6 +30,8 @@ for (const [queue, handle] of Object.entries(jobHandlers)) {
         throw error;
       }
     }
+    // A job was waiting, so more may be: fetch again at once instead of sleeping a polling interval.
+    boss.notifyWorker(workerId);
   });
 }
 console.log(`[worker] working ${Object.keys(jobHandlers).join(', ')} (polling every ${pollingIntervalSeconds} s)`);

@@ -145,6 +145,7 @@ async function start(): Promise<void> {
       '',
       `  Demo sign-ins at ${url}/sign-in (password for all: ${DEMO_PASSWORD})`,
       ...demoSignInLines().map((line) => `    ${line}`),
+      `    owner       ines@tamsincreek.example (and the other demo plants): no password — ask for a link at /sign-in, open it in the inbox`,
       '',
       '  Ctrl-C stops the site, the fakes and PostgreSQL. `npm run reset` wipes the demo data.',
       '',

@@ -43,7 +43,10 @@ export class Supervisor {
     for (const stream of [child.stdout, child.stderr]) {
       if (!stream) continue;
       if (log) stream.pipe(log, { end: false });
-      else createInterface({ input: stream }).on('line', (line) => console.log(`[${spec.name}] ${line}`));
+      else {
+        const prefix = `[${spec.name}]`;
+        createInterface({ input: stream }).on('line', (line) => console.log(line.startsWith(prefix) ? line : `${prefix} ${line}`));
+      }
     }
     const exited = new Promise<number | null>((resolve) => {
       child.on('exit', (code) => {
