@@ -1,0 +1,137 @@
+/** Step 2: what the boiler burns, what it costs in the person's own unit, and how efficiently. */
+import { useFormContext, useWatch } from 'react-hook-form';
+import { FUELS, type FuelId, type FuelPriceUnit } from '../../lib/engine';
+import { formatFigure } from '../../lib/units-display';
+import { CURRENCIES, defaultPriceUnit, fuelById, type DraftValues } from './draft';
+import { GuessToggle, NumberField, SelectField, useUnitSystem } from './fields';
+
+/** How each price unit reads in a sentence. */
+export const PRICE_UNIT_NAMES: Record<FuelPriceUnit, string> = {
+  therm: 'therm',
+  MMBtu: 'MMBtu',
+  GJ: 'GJ',
+  kWh: 'kWh',
+  m3: 'cubic metre (m³)',
+  gallon: 'US gallon',
+  litre: 'litre',
+  kg: 'kg',
+};
+
+/** Short names of the emission-factor sources for the drop-down; the full citation shows with the results. */
+const SOURCE_NAMES: Record<string, string> = {
+  'us-epa-2024': 'US EPA (2024)',
+  'uk-desnz-2023': 'UK government, DESNZ (2023)',
+  'ipcc-2006': 'IPCC guidelines (2006)',
+};
+
+export function EnergyStep() {
+  const { setValue, getValues } = useFormContext<DraftValues>();
+  const system = useUnitSystem();
+  const fuelId = useWatch<DraftValues, 'estimate.energy.fuel'>({ name: 'estimate.energy.fuel' });
+  const currency = useWatch<DraftValues, 'estimate.energy.currency'>({ name: 'estimate.energy.currency' }) ?? 'USD';
+  const priceUnit = useWatch<DraftValues, 'estimate.energy.priceUnit'>({ name: 'estimate.energy.priceUnit' });
+  const fuel = fuelById(fuelId) ?? FUELS[0];
+  const unitName = PRICE_UNIT_NAMES[priceUnit ?? fuel.defaultPriceUnit];
+  const efficiencyPercent = formatFigure(fuel.defaultBoilerEfficiency * 100);
+
+  return (
+    <div className="step-body">
+      <p className="step-lead">
+        Heat lost from the pipes is made up by the boiler, so it costs what the boiler burns. A recent
+        bill has everything this step asks for.
+      </p>
+
+      <div className="field-grid">
+        <SelectField
+          name="estimate.energy.fuel"
+          label="What the boiler burns"
+          options={FUELS.map((f) => ({ value: f.id, label: f.name }))}
+          onChosen={(id) => {
+            const chosen = fuelById(id);
+            if (!chosen) return;
+            const unit = getValues('estimate.energy.priceUnit');
+            if (!unit || !(chosen.priceUnits as readonly string[]).includes(unit)) {
+              setValue('estimate.energy.priceUnit', defaultPriceUnit(chosen.id as FuelId, system), { shouldDirty: true });
+            }
+            const source = getValues('estimate.energy.emissionFactorSource');
+            if (source && !chosen.emissionFactors.some((f) => f.source === source)) {
+              setValue('estimate.energy.emissionFactorSource', undefined, { shouldDirty: true });
+            }
+          }}
+        />
+        <SelectField
+          name="estimate.energy.currency"
+          label="Currency"
+          options={CURRENCIES.map((c) => ({ value: c.code, label: `${c.name} (${c.code})` }))}
+        />
+      </div>
+
+      <fieldset className="group">
+        <legend className="group-legend">Price you pay</legend>
+        <div className="field-grid">
+          <div className="field-with-guess">
+            <NumberField
+              name="estimate.energy.price"
+              label="Price"
+              unitText={`${currency} per ${unitName}`}
+              hint="The bill’s total divided by the quantity, with delivery charges and taxes."
+            />
+            <GuessToggle name="estimate.energy.priceConfidence" label="The price is a guess" />
+          </div>
+          <SelectField
+            name="estimate.energy.priceUnit"
+            label="Priced per"
+            options={fuel.priceUnits.map((u) => ({ value: u, label: PRICE_UNIT_NAMES[u] }))}
+          />
+        </div>
+      </fieldset>
+
+      <div className="field-with-guess max-w-xl">
+        <NumberField
+          name="estimate.energy.boilerEfficiency"
+          label="Boiler efficiency"
+          quantity="fraction"
+          optional
+          placeholder={efficiencyPercent}
+          hint={`Fuel turned into useful heat over a season. Leave it empty and Lagwise uses ${efficiencyPercent} %, usual for ${fuel.name.toLowerCase()}.`}
+        />
+        <GuessToggle name="estimate.energy.boilerEfficiencyConfidence" label="The efficiency is a guess" />
+      </div>
+
+      {fuel.id !== 'electricity' && (
+        <NumberField
+          name="estimate.energy.electricityPricePerKWh"
+          label="Electricity price for the chillers"
+          unitText={`${currency} per kWh`}
+          optional
+          hint="Only for chilled-water and glycol lines: heat they gain from the room is pumped out again by the chillers. Leave it empty and that heat is shown but not priced."
+          className="max-w-xl"
+        />
+      )}
+
+      <SelectField
+        name="estimate.energy.emissionFactorSource"
+        label="CO₂ factors from"
+        optional
+        emptyLabel={`Lagwise’s default: ${SOURCE_NAMES[fuel.emissionFactors[0]?.source ?? ''] ?? fuel.emissionFactors[0]?.label ?? 'US EPA'}`}
+        options={fuel.emissionFactors.map((f) => ({ value: f.source, label: SOURCE_NAMES[f.source] ?? f.label }))}
+        className="max-w-xl"
+      />
+
+      <fieldset className="group">
+        <legend className="group-legend">Money over time</legend>
+        <p className="field-hint">For the life-cycle cost and the cash flow of insulating. The defaults suit most plants.</p>
+        <div className="field-grid">
+          <NumberField name="estimate.economics.horizonYears" label="Years to count" unitText="years" whole />
+          <NumberField name="estimate.economics.discountRatePercent" label="Discount rate" quantity="percent" />
+          <NumberField
+            name="estimate.economics.fuelEscalationPercent"
+            label="Yearly rise in fuel price"
+            quantity="percent"
+            signed
+          />
+        </div>
+      </fieldset>
+    </div>
+  );
+}

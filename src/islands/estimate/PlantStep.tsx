@@ -1,0 +1,103 @@
+/** Step 1: what the plant is, where it is, how long its lines run and the air around them. */
+import { useFormContext, useWatch } from 'react-hook-form';
+import { countryOptions, plantTypes } from '../../schemas/assessment';
+import { isCountryCode, postalFormats } from '../../lib/routing/postal-code';
+import { currencyOfCountry, type DraftValues } from './draft';
+import { GuessToggle, NumberField, SelectField, TextField } from './fields';
+
+export function PlantStep() {
+  const { setValue } = useFormContext<DraftValues>();
+  const country = useWatch<DraftValues, 'plant.countryCode'>({ name: 'plant.countryCode' });
+  const example = country && isCountryCode(country) ? postalFormats[country].example : undefined;
+  return (
+    <div className="step-body">
+      <p className="step-lead">
+        A few facts about the plant. Guesses are fine: tick “a guess” and the range around each result
+        widens to match.
+      </p>
+
+      <div className="field-grid">
+        <TextField name="plant.plantName" label="Plant name" optional autoComplete="organization" />
+        <SelectField
+          name="plant.plantType"
+          label="What the plant makes"
+          emptyLabel="Choose the kind of plant"
+          options={plantTypes.map((t) => ({ value: t.id, label: t.name }))}
+        />
+        <SelectField
+          name="plant.countryCode"
+          label="Country"
+          emptyLabel="Choose the country"
+          options={countryOptions.map((c) => ({ value: c.code, label: c.name }))}
+          onChosen={(code) => {
+            const currency = currencyOfCountry(code);
+            if (currency) setValue('estimate.energy.currency', currency, { shouldDirty: true });
+          }}
+        />
+        <TextField
+          name="plant.postalCode"
+          label="Postal code"
+          autoComplete="postal-code"
+          hint={example ? `Like ${example}. It decides which consultant can follow up.` : 'It decides which consultant can follow up.'}
+          inputClassName="max-w-48"
+        />
+      </div>
+
+      <div className="field-with-guess">
+        <NumberField
+          name="estimate.operatingHoursPerYear"
+          label="Running hours"
+          unitText="h a year"
+          whole
+          hint="Hours a year the lines are hot or cold. One shift five days a week is about 2,000 h; two shifts about 4,000 h; round the clock 8,760 h."
+        />
+        <GuessToggle name="estimate.operatingHoursConfidence" label="The hours are a guess" />
+      </div>
+
+      <fieldset className="group">
+        <legend className="group-legend">Air inside the plant</legend>
+        <p className="field-hint">Around the pipe runs while they are in use.</p>
+        <div className="field-grid">
+          <NumberField name="estimate.conditions.indoorAirTemperatureC" label="Air temperature" quantity="temperature" signed />
+          <NumberField
+            name="estimate.conditions.indoorRelativeHumidityPercent"
+            label="Relative humidity"
+            quantity="percent"
+            hint="Sets the dew point that cold lines must stay above."
+          />
+          <NumberField
+            name="estimate.conditions.draughtyAirSpeedMPerS"
+            label="Air speed in draughty spots"
+            quantity="speed"
+            hint="Near doors and fans; used for runs you mark as draughty."
+          />
+        </div>
+      </fieldset>
+
+      <fieldset className="group">
+        <legend className="group-legend">Outdoors</legend>
+        <p className="field-hint">Only used for runs that go outside, such as a line across the yard to a second building.</p>
+        <div className="field-grid">
+          <NumberField
+            name="estimate.conditions.outdoorAirTemperatureC"
+            label="Average air temperature while running"
+            quantity="temperature"
+            signed
+          />
+          <NumberField name="estimate.conditions.outdoorRelativeHumidityPercent" label="Relative humidity" quantity="percent" />
+          <NumberField name="estimate.conditions.outdoorWindSpeedMPerS" label="Typical wind speed" quantity="speed" />
+        </div>
+      </fieldset>
+
+      <NumberField
+        name="estimate.conditions.altitudeM"
+        label="Altitude above sea level"
+        quantity="altitude"
+        signed
+        optional
+        hint="Thinner air lowers the boiling point of steam a little."
+        className="max-w-sm"
+      />
+    </div>
+  );
+}

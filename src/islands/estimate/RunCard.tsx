@@ -1,0 +1,331 @@
+/** One pipe run: what it carries, its pipe, length, condition, surroundings, state today, fittings, proposal, photos. */
+import { useFormContext, useWatch } from 'react-hook-form';
+import {
+  INSULATION_MATERIALS,
+  PIPE_MATERIALS,
+  PIPE_STANDARDS,
+  SERVICE_DEFAULTS,
+  SURFACES,
+  serviceDefaults,
+  type PipeSizeEntry,
+  type PipeStandard,
+  type ServiceId,
+} from '../../lib/engine';
+import { displayUnit, formatForInput, formatQuantity, type DisplayQuantity, type UnitSystem } from '../../lib/units-display';
+import { existingInsulationDefaults, pipeStandard, serviceCondition, type DraftValues } from './draft';
+import { ChoiceField, CheckField, GuessToggle, NumberField, SelectField, TextField, useHasErrorUnder, useUnitSystem, type Option } from './fields';
+import { PhotoPicker } from './PhotoPicker';
+
+interface Props {
+  index: number;
+  count: number;
+  headingRef: (element: HTMLHeadingElement | null) => void;
+  onDuplicate: () => void;
+  onRemove: () => void;
+}
+
+const JACKETS = SURFACES.filter((s) => s.kind === 'jacket');
+
+function materialName(id: string | undefined): string {
+  return INSULATION_MATERIALS.find((m) => m.id === id)?.name ?? 'the usual material';
+}
+
+function jacketName(id: string | undefined): string {
+  return JACKETS.find((j) => j.id === id)?.name ?? 'the usual jacket';
+}
+
+/** Short names for the drop-down: what the pipe is first, its standard after. */
+const STANDARD_NAMES: Record<string, string> = {
+  'ASME-B36.10M': 'Steel pipe, NPS (ASME B36.10M)',
+  'ASME-B36.19M': 'Stainless pipe, NPS (ASME B36.19M)',
+  'ASTM-B88-L': 'Copper tube, Type L (ASTM B88)',
+  'ASTM-B88-K': 'Copper tube, Type K (ASTM B88)',
+  'EN-10220': 'Metric steel tube, DN (EN 10220)',
+};
+
+/** "NPS 2 · 2.375 in OD", "DN50 · 60.3 mm OD", "3/4 in · 0.875 in OD". */
+function sizeLabel(standard: PipeStandard, entry: PipeSizeEntry, system: UnitSystem): string {
+  const od = formatQuantity(entry.outerDiameterM, 'diameter', system, { significant: 4, maxDecimals: system === 'US' ? 3 : 1 });
+  if (standard.id.startsWith('ASME')) return `NPS ${entry.size} · ${od} OD`;
+  if (standard.id.startsWith('ASTM')) return `${entry.size} in · ${od} OD`;
+  return `${entry.size} · ${od} OD`;
+}
+
+function scheduleLabel(standard: PipeStandard, key: string, wallM: number, system: UnitSystem): string {
+  const wall = formatQuantity(wallM, 'thickness', system, { significant: 3, maxDecimals: system === 'US' ? 3 : 1 });
+  if (standard.id === 'EN-10220') return `${wall} wall`;
+  if (standard.id.startsWith('ASTM')) return `Type ${key} · ${wall} wall`;
+  const named: Record<string, string> = { STD: 'STD (standard weight)', XS: 'XS (extra strong)' };
+  return `${named[key] ?? `Schedule ${key}`} · ${wall} wall`;
+}
+
+/** A typical value written exactly as the input would show it, so hint and box agree. */
+function typical(value: number, quantity: DisplayQuantity, system: UnitSystem): string {
+  return `${formatForInput(value, quantity, system)} ${displayUnit(quantity, system).symbol}`;
+}
+
+function closestSize(standard: PipeStandard, nominalInch: number | undefined): PipeSizeEntry | undefined {
+  if (nominalInch === undefined) return standard.sizes[0];
+  return standard.sizes.reduce<PipeSizeEntry | undefined>(
+    (best, entry) => (!best || Math.abs(entry.nominalInch - nominalInch) < Math.abs(best.nominalInch - nominalInch) ? entry : best),
+    undefined,
+  );
+}
+
+export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Props) {
+  const { setValue, getValues } = useFormContext<DraftValues>();
+  const system = useUnitSystem();
+  const base = `estimate.runs.${index}` as const;
+  const run = useWatch<DraftValues, `estimate.runs.${number}`>({ name: base });
+  const service = serviceDefaults((run?.service ?? 'steam') as ServiceId);
+  const pipe = run?.pipe && 'standard' in run.pipe ? run.pipe : undefined;
+  const standard = pipeStandard(pipe?.standard) ?? PIPE_STANDARDS[0];
+  const entry = standard?.sizes.find((s) => s.size === pipe?.size);
+  const schedules = entry ? Object.entries(entry.wallsM) : [];
+  const state = run?.current?.state ?? 'bare';
+  const ambient = run?.ambient?.kind ?? 'indoor-still';
+  const cold = service.cold;
+  const runId = run?.id ?? '';
+  const title = run?.label?.trim() ? run.label : `Run ${index + 1}`;
+  const headingId = `run-${index}-heading`;
+
+  const dirty = { shouldDirty: true, shouldValidate: false } as const;
+
+  function chooseService(id: string) {
+    const chosen = SERVICE_DEFAULTS.find((s) => s.id === id);
+    if (!chosen) return;
+    const condition = serviceCondition(chosen.id);
+    setValue(`${base}.steamGaugePressureKPa`, condition.steamGaugePressureKPa, dirty);
+    setValue(`${base}.fluidTemperatureC`, condition.fluidTemperatureC, dirty);
+    // A proposal chosen for the old service may not be rated for the new one; fall back to the new service's usual.
+    setValue(`${base}.proposed.material`, undefined, dirty);
+    setValue(`${base}.proposed.jacket`, undefined, dirty);
+  }
+
+  function chooseStandard(id: string) {
+    const chosen = pipeStandard(id);
+    if (!chosen) return;
+    const size = closestSize(chosen, entry?.nominalInch);
+    setValue(`${base}.pipe.size`, size?.size ?? '', dirty);
+    setValue(`${base}.pipe.schedule`, size?.defaultSchedule, dirty);
+    setValue(`${base}.pipe.material`, chosen.defaultMaterial, dirty);
+  }
+
+  function chooseSize(size: string) {
+    const chosen = standard?.sizes.find((s) => s.size === size);
+    const schedule = getValues(`${base}.pipe.schedule`);
+    if (chosen && (!schedule || !(schedule in chosen.wallsM))) {
+      setValue(`${base}.pipe.schedule`, chosen.defaultSchedule, dirty);
+    }
+  }
+
+  function chooseState(next: string) {
+    if (next === 'bare') return;
+    const current = getValues(`${base}.current`);
+    const defaults = existingInsulationDefaults(service.id, system);
+    const has = (key: 'material' | 'thicknessM' | 'jacket') =>
+      current && current.state !== 'bare' && (current as Record<string, unknown>)[key] !== undefined;
+    if (!has('material')) setValue(`${base}.current.material`, defaults.material, dirty);
+    if (!has('thicknessM')) setValue(`${base}.current.thicknessM`, defaults.thicknessM, dirty);
+    if (!has('jacket')) setValue(`${base}.current.jacket`, defaults.jacket, dirty);
+  }
+
+  const insulationOptions: Option[] = INSULATION_MATERIALS.map((m) => ({
+    value: m.id,
+    label: `${m.name} (${formatQuantity(m.serviceMinC, 'temperature', system, { significant: 3, maxDecimals: 0 })} to ${formatQuantity(m.serviceMaxC, 'temperature', system, { significant: 3, maxDecimals: 0 })})`,
+  }));
+  const jacketOptions: Option[] = JACKETS.map((j) => ({ value: j.id, label: j.name }));
+  const proposalHasError = useHasErrorUnder(`${base}.proposed`);
+
+  return (
+    <section className={`run-card ${cold ? 'run-card-cold' : 'run-card-hot'}`} aria-labelledby={headingId}>
+      <div className="run-card-head">
+        <h3 id={headingId} ref={headingRef} tabIndex={-1} className="run-title">
+          <span className="run-number">Run {index + 1}</span>
+          <span className="run-name">{title}</span>
+        </h3>
+        <div className="run-actions">
+          <button type="button" className="btn btn-quiet btn-small" onClick={onDuplicate} aria-describedby={headingId}>
+            Duplicate
+          </button>
+          {count > 1 && (
+            <button type="button" className="btn btn-quiet btn-small" onClick={onRemove} aria-describedby={headingId}>
+              Remove
+            </button>
+          )}
+        </div>
+      </div>
+
+      <div className="field-grid">
+        <TextField name={`${base}.label`} label="Name of the run" hint="What you call it on site, such as “Boiler to kettle 2”." />
+        <SelectField
+          name={`${base}.service`}
+          label="What it carries"
+          options={SERVICE_DEFAULTS.map((s) => ({ value: s.id, label: s.name }))}
+          onChosen={chooseService}
+        />
+      </div>
+
+      <fieldset className="group">
+        <legend className="group-legend">Pipe</legend>
+        <div className="field-grid">
+          <SelectField
+            name={`${base}.pipe.standard`}
+            label="Pipe or tube standard"
+            options={PIPE_STANDARDS.map((s) => ({ value: s.id, label: STANDARD_NAMES[s.id] ?? s.name }))}
+            onChosen={chooseStandard}
+          />
+          {standard && (
+            <SelectField
+              name={`${base}.pipe.size`}
+              label="Size"
+              options={standard.sizes.map((s) => ({ value: s.size, label: sizeLabel(standard, s, system) }))}
+              onChosen={chooseSize}
+            />
+          )}
+          {standard && schedules.length > 1 && (
+            <SelectField
+              name={`${base}.pipe.schedule`}
+              label={standard.id === 'EN-10220' ? 'Wall thickness' : 'Schedule'}
+              options={schedules.map(([key, wall]) => ({ value: key, label: scheduleLabel(standard, key, wall, system) }))}
+              hint={standard.id === 'EN-10220' ? undefined : 'Schedule 40 is the usual wall for steam and water lines.'}
+            />
+          )}
+          <SelectField
+            name={`${base}.pipe.material`}
+            label="Pipe material"
+            options={PIPE_MATERIALS.map((m) => ({ value: m.id, label: m.name }))}
+          />
+        </div>
+      </fieldset>
+
+      <div className="field-grid">
+        <div className="field-with-guess">
+          <NumberField name={`${base}.lengthM`} label="Length" quantity="length" hint="End to end, bends included." />
+          <GuessToggle name={`${base}.lengthConfidence`} label="The length is a guess" />
+        </div>
+        {service.kind === 'steam' ? (
+          <NumberField
+            key="steam"
+            name={`${base}.steamGaugePressureKPa`}
+            label="Steam pressure on the gauge"
+            quantity="gaugePressure"
+            hint={`Usual for process steam: ${typical(service.typicalGaugePressureKPa ?? 0, 'gaugePressure', system)}.`}
+          />
+        ) : (
+          <NumberField
+            key="liquid"
+            name={`${base}.fluidTemperatureC`}
+            label={cold ? 'Temperature of the cold line' : 'Temperature of the liquid'}
+            quantity="temperature"
+            signed
+            hint={`Usual for ${service.name.toLowerCase()}: ${typical(service.typicalTemperatureC, 'temperature', system)}.`}
+          />
+        )}
+      </div>
+
+      <ChoiceField
+        name={`${base}.ambient.kind`}
+        legend="Where it runs"
+        inline
+        options={[
+          { value: 'indoor-still', label: 'Indoors, still air' },
+          { value: 'indoor-draughty', label: 'Indoors, draughty', note: 'near doors or fans' },
+          { value: 'outdoor', label: 'Outdoors', note: 'in the wind' },
+        ]}
+      />
+      {ambient === 'outdoor' && (
+        <NumberField
+          name={`${base}.ambient.windSpeedMPerS`}
+          label="Wind speed at this run"
+          quantity="speed"
+          optional
+          hint="Leave it empty to use the plant’s typical wind speed."
+          className="max-w-sm"
+        />
+      )}
+
+      <fieldset className="group">
+        <legend className="group-legend">Insulation today</legend>
+        <ChoiceField
+          name={`${base}.current.state`}
+          legend="State of the run"
+          inline
+          onChosen={chooseState}
+          options={[
+            { value: 'bare', label: 'Bare', note: 'no insulation at all' },
+            { value: 'damaged', label: 'Damaged', note: 'partly stripped or wet' },
+            { value: 'insulated', label: 'Insulated', note: 'whole and dry' },
+          ]}
+        />
+        {state !== 'bare' && (
+          <div className="field-grid">
+            {state === 'damaged' && (
+              <div className="field-with-guess">
+                <NumberField
+                  name={`${base}.current.bareFraction`}
+                  label="Share of the run left bare"
+                  quantity="fraction"
+                  hint="0 to 100 %: a run with half its lagging missing is 50 %."
+                />
+                <GuessToggle name={`${base}.current.bareFractionConfidence`} label="The share is a guess" />
+              </div>
+            )}
+            <SelectField name={`${base}.current.material`} label="Insulation on it" options={insulationOptions} />
+            <NumberField name={`${base}.current.thicknessM`} label="Its thickness" quantity="thickness" />
+            <SelectField name={`${base}.current.jacket`} label="Its outer covering" options={jacketOptions} />
+            <CheckField name={`${base}.fittingsInsulated`} label="Its valves and flanges are insulated too" />
+          </div>
+        )}
+        {state !== 'insulated' && (
+          <p className="field-hint caution-inline">
+            Old lagging can contain asbestos. Leave it as it is: do not strip, cut or sweep it up.
+          </p>
+        )}
+      </fieldset>
+
+      <fieldset className="group">
+        <legend className="group-legend">Valves and flanges on the run</legend>
+        <div className="field-grid">
+          <NumberField name={`${base}.valves`} label="Valves" whole hint="Each valve body with its bonnet." />
+          <NumberField name={`${base}.flangePairs`} label="Flange pairs" whole hint="A bolted joint counts as one pair." />
+        </div>
+      </fieldset>
+
+      <details className="group proposal" open={proposalHasError || undefined}>
+        <summary className="group-legend">
+          Proposed insulation <span className="field-optional">(optional)</span>
+        </summary>
+        <p className="field-hint">
+          Left as they are, Lagwise proposes {materialName(service.defaultInsulation).toLowerCase()} in{' '}
+          {jacketName(service.defaultJacket).toLowerCase()}, at the thickness that costs least over the years counted
+          {cold ? ', and never thinner than keeps the surface above the dew point' : ', and never thinner than keeps the surface safe to touch'}.
+        </p>
+        <div className="field-grid">
+          <SelectField
+            name={`${base}.proposed.material`}
+            label="Material"
+            emptyLabel={`Usual for ${service.name.toLowerCase()}: ${materialName(service.defaultInsulation)}`}
+            options={insulationOptions}
+          />
+          <NumberField
+            name={`${base}.proposed.thicknessM`}
+            label="Thickness"
+            quantity="thickness"
+            optional
+            hint="Leave it empty and Lagwise picks the economic thickness."
+          />
+          <SelectField
+            name={`${base}.proposed.jacket`}
+            label="Outer covering"
+            emptyLabel={`Usual: ${jacketName(service.defaultJacket)}`}
+            options={jacketOptions}
+          />
+          <CheckField name={`${base}.proposed.coverFittings`} label="Fit removable covers on valves and flanges" />
+        </div>
+      </details>
+
+      <PhotoPicker runId={runId} runTitle={title} />
+    </section>
+  );
+}

@@ -1,0 +1,309 @@
+/**
+ * The estimate draft: what the wizard's form holds (the very shape the assessment schema
+ * parses), its starting values taken from the engine's own defaults, the steps it is split
+ * into, and the PlantInput and assessment bodies made from it.
+ */
+import {
+  FUELS,
+  PIPE_STANDARDS,
+  plantInputSchema,
+  serviceDefaults,
+  type FuelId,
+  type FuelPriceUnit,
+  type PipeStandardId,
+  type PlantInput,
+  type PlantRunInput,
+  type ServiceId,
+} from '../../lib/engine';
+import { createAssessmentSchema, type CreateAssessmentInput } from '../../schemas/assessment';
+import type { UnitSystem } from '../../lib/units-display';
+
+/** The form's values: exactly what POST /api/assessments parses. */
+export type DraftValues = CreateAssessmentInput;
+export type DraftRun = PlantRunInput;
+
+export const STEPS = [
+  { id: 'plant', title: 'Plant', heading: 'Your plant' },
+  { id: 'energy', title: 'Energy', heading: 'Fuel and its price' },
+  { id: 'runs', title: 'Pipe runs', heading: 'Pipe runs' },
+  { id: 'results', title: 'Results', heading: 'The figures for your plant' },
+  { id: 'contact', title: 'Contact', heading: 'Send it to a consultant' },
+] as const;
+
+export type StepId = (typeof STEPS)[number]['id'];
+export const STEP_IDS = STEPS.map((s) => s.id) as readonly StepId[];
+
+export function stepIndex(step: StepId): number {
+  return STEP_IDS.indexOf(step);
+}
+
+export function isStepId(value: unknown): value is StepId {
+  return typeof value === 'string' && (STEP_IDS as readonly string[]).includes(value);
+}
+
+/** The form paths each step asks for, validated together when the person moves on. */
+export const STEP_FIELDS = {
+  plant: ['plant', 'estimate.unitSystem', 'estimate.operatingHoursPerYear', 'estimate.operatingHoursConfidence', 'estimate.conditions'],
+  energy: ['estimate.energy', 'estimate.economics'],
+  runs: ['estimate.runs'],
+  results: [],
+  contact: ['contact', 'consent', 'website'],
+} as const satisfies Record<StepId, readonly string[]>;
+
+/** The step where a field (by its dotted path, as the server reports it) is asked. */
+export function stepOfPath(path: string): StepId {
+  for (const step of STEP_IDS) {
+    if (STEP_FIELDS[step].some((prefix: string) => path === prefix || path.startsWith(`${prefix}.`))) return step;
+  }
+  // Anything else of the estimate (a photo of a run, a plant-wide rule) is settled on the runs step.
+  return path.startsWith('contact') ? 'contact' : path.startsWith('plant') ? 'plant' : 'runs';
+}
+
+/** The engine's run schema, reached through the plant schema rather than declared again. */
+const runSchema = plantInputSchema.shape.runs.element;
+
+/** The engine's defaults for the plant's conditions, economics and hours. */
+export const PLANT_DEFAULTS = {
+  operatingHoursPerYear: plantInputSchema.shape.operatingHoursPerYear.parse(undefined),
+  conditions: plantInputSchema.shape.conditions.parse(undefined),
+  economics: plantInputSchema.shape.economics.parse(undefined),
+  currency: plantInputSchema.shape.energy.shape.currency.parse(undefined),
+};
+
+/**
+ * What a damaged or insulated run starts with in the form: the service's usual material, a
+ * 1-inch or 25 mm stock thickness, and the engine's default covering for existing lagging.
+ */
+export function existingInsulationDefaults(service: ServiceId, system: UnitSystem) {
+  const parsed = runSchema.shape.current.parse({ state: 'damaged', bareFraction: 0.5 });
+  return {
+    material: serviceDefaults(service).defaultInsulation,
+    thicknessM: system === 'US' ? 0.0254 : 0.025,
+    jacket: parsed.state === 'damaged' ? parsed.jacket : serviceDefaults(service).defaultJacket,
+  };
+}
+
+export function fuelById(id: string | undefined) {
+  return FUELS.find((f) => f.id === id);
+}
+
+export function pipeStandard(id: string | undefined) {
+  return PIPE_STANDARDS.find((s) => s.id === id);
+}
+
+/** Currencies offered, with the country each is the default of. */
+export const CURRENCIES = [
+  { code: 'USD', name: 'US dollar' },
+  { code: 'CAD', name: 'Canadian dollar' },
+  { code: 'GBP', name: 'Pound sterling' },
+  { code: 'EUR', name: 'Euro' },
+  { code: 'AUD', name: 'Australian dollar' },
+  { code: 'NZD', name: 'New Zealand dollar' },
+  { code: 'DKK', name: 'Danish krone' },
+  { code: 'SEK', name: 'Swedish krona' },
+  { code: 'NOK', name: 'Norwegian krone' },
+] as const;
+
+const COUNTRY_CURRENCY: Record<string, string> = {
+  US: 'USD',
+  CA: 'CAD',
+  GB: 'GBP',
+  IE: 'EUR',
+  AU: 'AUD',
+  NZ: 'NZD',
+  DE: 'EUR',
+  FR: 'EUR',
+  NL: 'EUR',
+  BE: 'EUR',
+  DK: 'DKK',
+  SE: 'SEK',
+  NO: 'NOK',
+};
+
+export function currencyOfCountry(countryCode: string): string | undefined {
+  return COUNTRY_CURRENCY[countryCode];
+}
+
+/** The unit a fuel is priced in by default under each unit system. */
+export function defaultPriceUnit(fuelId: FuelId, system: UnitSystem): FuelPriceUnit {
+  const fuel = fuelById(fuelId);
+  if (!fuel) return 'kWh';
+  const metric: readonly FuelPriceUnit[] = ['m3', 'litre', 'kWh'];
+  if (system === 'SI') return fuel.priceUnits.find((u) => metric.includes(u)) ?? fuel.defaultPriceUnit;
+  return fuel.defaultPriceUnit;
+}
+
+/** The steam pressure or fluid temperature a run of this service starts with. */
+export function serviceCondition(service: ServiceId): Pick<DraftRun, 'steamGaugePressureKPa' | 'fluidTemperatureC'> {
+  const defaults = serviceDefaults(service);
+  return defaults.kind === 'steam'
+    ? { steamGaugePressureKPa: defaults.typicalGaugePressureKPa ?? undefined, fluidTemperatureC: undefined }
+    : { steamGaugePressureKPa: undefined, fluidTemperatureC: defaults.typicalTemperatureC };
+}
+
+/** The pipe a new run starts with: 2-inch schedule 40 steel, or DN50 for metric plants. */
+export function defaultPipe(system: UnitSystem, standardId?: PipeStandardId): DraftRun['pipe'] {
+  const standard = pipeStandard(standardId ?? (system === 'US' ? 'ASME-B36.10M' : 'EN-10220')) ?? PIPE_STANDARDS[0];
+  if (!standard) throw new RangeError('The engine lists no pipe standard.');
+  const entry = standard.sizes.find((s) => s.dn === 50) ?? standard.sizes[0];
+  return {
+    standard: standard.id,
+    size: entry?.size ?? '',
+    schedule: entry?.defaultSchedule,
+    material: standard.defaultMaterial,
+  };
+}
+
+/**
+ * A run id: short, unique within the draft and safe in a form part name
+ * (`photos.<runId>`). Random rather than counted so a duplicate never collides.
+ */
+export function newRunId(): string {
+  const bytes = new Uint8Array(6);
+  crypto.getRandomValues(bytes);
+  return `run-${Array.from(bytes, (b) => b.toString(16).padStart(2, '0')).join('')}`;
+}
+
+/** A UUID v4 from getRandomValues, which (unlike randomUUID) works outside secure contexts too. */
+export function newIdempotencyKey(): string {
+  const bytes = new Uint8Array(16);
+  crypto.getRandomValues(bytes);
+  bytes[6] = ((bytes[6] ?? 0) & 0x0f) | 0x40;
+  bytes[8] = ((bytes[8] ?? 0) & 0x3f) | 0x80;
+  const hex = Array.from(bytes, (b) => b.toString(16).padStart(2, '0')).join('');
+  return `${hex.slice(0, 8)}-${hex.slice(8, 12)}-${hex.slice(12, 16)}-${hex.slice(16, 20)}-${hex.slice(20)}`;
+}
+
+/**
+ * Stands in for a required answer the person has not given yet (a length, a price): the
+ * form holds it empty and the schema reports it in its own words until it is filled.
+ */
+function notYetAnswered<T>(): T {
+  return undefined as T;
+}
+
+export function newRun(system: UnitSystem, number: number, service: ServiceId = 'steam'): DraftRun {
+  return {
+    id: newRunId(),
+    label: `Run ${number}`,
+    service,
+    pipe: defaultPipe(system),
+    lengthM: notYetAnswered<number>(),
+    ...serviceCondition(service),
+    ambient: { kind: 'indoor-still' },
+    current: { state: 'bare' },
+    valves: 0,
+    flangePairs: 0,
+    proposed: { coverFittings: true },
+  };
+}
+
+/** A copy of a run with its own id, placed after it; photos stay with the original. */
+export function duplicateRun(run: DraftRun): DraftRun {
+  const copy = structuredClone(run);
+  return { ...copy, id: newRunId(), label: `${run.label ?? 'Run'} (copy)`.slice(0, 120) };
+}
+
+/** The unit system a first-time visitor most likely reads. */
+export function guessUnitSystem(): UnitSystem {
+  const language = typeof navigator === 'undefined' ? '' : navigator.language;
+  return /^(en-US|en-LR|es-US)$/i.test(language) ? 'US' : 'SI';
+}
+
+export function freshValues(system: UnitSystem = guessUnitSystem()): DraftValues {
+  const fuel: FuelId = 'natural-gas';
+  return {
+    contact: { name: '', company: '', email: '', phone: '' },
+    plant: { plantName: '', plantType: notYetAnswered<DraftValues['plant']['plantType']>(), countryCode: '', postalCode: '' },
+    estimate: {
+      unitSystem: system,
+      operatingHoursPerYear: PLANT_DEFAULTS.operatingHoursPerYear,
+      conditions: { ...PLANT_DEFAULTS.conditions },
+      energy: {
+        fuel,
+        price: notYetAnswered<number>(),
+        priceUnit: defaultPriceUnit(fuel, system),
+        currency: PLANT_DEFAULTS.currency,
+      },
+      economics: {
+        horizonYears: PLANT_DEFAULTS.economics.horizonYears,
+        discountRatePercent: PLANT_DEFAULTS.economics.discountRatePercent,
+        fuelEscalationPercent: PLANT_DEFAULTS.economics.fuelEscalationPercent,
+      },
+      runs: [newRun(system, 1)],
+    },
+    consent: notYetAnswered<true>(),
+    website: '',
+  };
+}
+
+/** Drops keys whose value is undefined, so the JSON body carries only what was given. */
+function withoutUndefined<T>(value: T): T {
+  return JSON.parse(JSON.stringify(value)) as T;
+}
+
+/** One run as it is posted: only the condition its service takes, only the fields its state uses. */
+function runForPosting(run: DraftRun): DraftRun {
+  const steam = serviceDefaults(run.service).kind === 'steam';
+  const { steamGaugePressureKPa, fluidTemperatureC, ...rest } = run;
+  const ambient = run.ambient;
+  const current = run.current;
+  return {
+    ...rest,
+    ...(steam ? { steamGaugePressureKPa } : { fluidTemperatureC }),
+    ...(ambient
+      ? {
+          ambient:
+            ambient.kind === 'outdoor'
+              ? { kind: 'outdoor', windSpeedMPerS: ambient.windSpeedMPerS }
+              : ambient.kind === 'indoor-draughty'
+                ? { kind: 'indoor-draughty', airSpeedMPerS: ambient.airSpeedMPerS }
+                : { kind: 'indoor-still' },
+        }
+      : {}),
+    ...(current
+      ? {
+          current:
+            current.state === 'bare'
+              ? { state: 'bare' }
+              : current.state === 'damaged'
+                ? {
+                    state: 'damaged',
+                    bareFraction: current.bareFraction,
+                    bareFractionConfidence: current.bareFractionConfidence,
+                    material: current.material,
+                    thicknessM: current.thicknessM,
+                    jacket: current.jacket,
+                  }
+                : { state: 'insulated', material: current.material, thicknessM: current.thicknessM, jacket: current.jacket },
+        }
+      : {}),
+    ...(current?.state === 'bare' ? { fittingsInsulated: false } : {}),
+  };
+}
+
+/** The PlantInput the draft describes, as POST /api/estimate takes it. */
+export function toPlantInput(estimate: PlantInput): PlantInput {
+  return withoutUndefined({ ...estimate, runs: estimate.runs.map(runForPosting) });
+}
+
+/** The body of the `assessment` part: the whole draft with the estimate cleaned up. */
+export function toAssessmentInput(values: DraftValues): CreateAssessmentInput {
+  return withoutUndefined({ ...values, estimate: toPlantInput(values.estimate) });
+}
+
+/** Steps with at least one problem, read from the same schema the server parses with. */
+export function stepsWithProblems(values: unknown): Set<StepId> {
+  const parsed = createAssessmentSchema.safeParse(values);
+  const steps = new Set<StepId>();
+  if (parsed.success) return steps;
+  for (const issue of parsed.error.issues) steps.add(stepOfPath(issue.path.map(String).join('.')));
+  return steps;
+}
+
+/** The estimate input when the draft's estimate part is complete and valid, else null. */
+export function validPlantInput(estimate: unknown): PlantInput | null {
+  if (typeof estimate !== 'object' || estimate === null || !Array.isArray((estimate as PlantInput).runs)) return null;
+  const input = toPlantInput(estimate as PlantInput);
+  return plantInputSchema.safeParse(input).success ? input : null;
+}

@@ -1,0 +1,376 @@
+/**
+ * Form controls of the estimate: each with a label that names its unit, an optional hint,
+ * and its error in a sentence beside it, tied together with aria-describedby.
+ */
+import { useState, type ReactNode } from 'react';
+import {
+  get,
+  useController,
+  useFormContext,
+  useFormState,
+  useWatch,
+  type FieldPath,
+  type RegisterOptions,
+} from 'react-hook-form';
+import {
+  displayUnit,
+  formatForInput,
+  parseTyped,
+  type DisplayQuantity,
+  type UnitSystem,
+} from '../../lib/units-display';
+import type { DraftValues } from './draft';
+
+export type Name = FieldPath<DraftValues>;
+
+/** The id of the control for a form path: `estimate.runs.0.lengthM` → `f-estimate-runs-0-lengthM`. */
+export function fieldId(name: string): string {
+  return `f-${name.replace(/\./g, '-')}`;
+}
+
+/** The message of the error at a path, whether it sits on the field or on a list as a whole. */
+export function errorMessageAt(errors: unknown, name: string): string | undefined {
+  const error: unknown = get(errors, name);
+  if (typeof error !== 'object' || error === null) return undefined;
+  const own = (error as { message?: unknown }).message;
+  if (typeof own === 'string' && own) return own;
+  const root = (error as { root?: { message?: unknown } }).root?.message;
+  return typeof root === 'string' && root ? root : undefined;
+}
+
+export function useFieldError(name: string): string | undefined {
+  const { errors } = useFormState<DraftValues>({ name: name as Name });
+  return errorMessageAt(errors, name);
+}
+
+/** Dotted paths in the order their controls stand on the page (paths with no control last). */
+export function inPageOrder(paths: readonly string[]): string[] {
+  if (typeof document === 'undefined') return [...paths];
+  const element = (path: string) => document.getElementById(fieldId(path));
+  return [...paths].sort((a, b) => {
+    const first = element(a);
+    const second = element(b);
+    if (!first || !second) return first ? -1 : second ? 1 : 0;
+    return first.compareDocumentPosition(second) & Node.DOCUMENT_POSITION_FOLLOWING ? -1 : 1;
+  });
+}
+
+/** Whether anything under a path (a run's proposal, say) has an error. */
+export function useHasErrorUnder(name: string): boolean {
+  const { errors } = useFormState<DraftValues>({ name: name as Name });
+  return get(errors, name) !== undefined;
+}
+
+export function useUnitSystem(): UnitSystem {
+  const system = useWatch<DraftValues, 'estimate.unitSystem'>({ name: 'estimate.unitSystem' });
+  return system === 'US' ? 'US' : 'SI';
+}
+
+function describedBy(...ids: (string | false | undefined)[]): string | undefined {
+  const present = ids.filter((id): id is string => typeof id === 'string');
+  return present.length > 0 ? present.join(' ') : undefined;
+}
+
+export function FieldError({ id, message }: { id: string; message: string | undefined }) {
+  if (!message) return null;
+  return (
+    <p id={id} className="field-error">
+      <span aria-hidden="true" className="field-error-mark">
+        !
+      </span>
+      {message}
+    </p>
+  );
+}
+
+interface FieldFrameProps {
+  id: string;
+  label: ReactNode;
+  hint?: ReactNode | undefined;
+  error: string | undefined;
+  optional?: boolean | undefined;
+  children: ReactNode;
+  className?: string | undefined;
+}
+
+function FieldFrame({ id, label, hint, error, optional, children, className }: FieldFrameProps) {
+  return (
+    <div className={`field ${className ?? ''}`}>
+      <label htmlFor={id} className="field-label">
+        {label}
+        {optional && <span className="field-optional"> (optional)</span>}
+      </label>
+      {hint && (
+        <p id={`${id}-hint`} className="field-hint">
+          {hint}
+        </p>
+      )}
+      {children}
+      <FieldError id={`${id}-error`} message={error} />
+    </div>
+  );
+}
+
+interface NumberFieldProps {
+  name: Name;
+  label: string;
+  /** A physical quantity: shown in the unit of the current system, stored in SI. */
+  quantity?: DisplayQuantity;
+  /** Unit text for values that do not convert (hours a year, a price, a count). */
+  unitText?: string;
+  hint?: ReactNode;
+  optional?: boolean;
+  placeholder?: string;
+  /** Negative values are possible (temperatures): phones then show a keyboard with a minus. */
+  signed?: boolean;
+  /** Whole numbers only (counts). */
+  whole?: boolean;
+  className?: string;
+}
+
+/**
+ * A number typed in the person's unit and stored in SI at full precision. While the person
+ * types, their own text stays in the box; on leaving it (or on a unit switch) the box shows
+ * the stored value in the current unit, so a switch back and forth never drifts.
+ */
+export function NumberField({ name, label, quantity, unitText, hint, optional, placeholder, signed, whole, className }: NumberFieldProps) {
+  const system = useUnitSystem();
+  const { field, fieldState } = useController<DraftValues>({ name });
+  const [typing, setTyping] = useState<string | null>(null);
+  const unit = quantity ? displayUnit(quantity, system) : undefined;
+  const symbol = unit?.symbol ?? unitText;
+  const id = fieldId(name);
+  const error = fieldState.error?.message;
+  const shown = typing ?? (quantity ? formatForInput(field.value, quantity, system) : field.value === undefined || field.value === null ? '' : String(field.value));
+  return (
+    <FieldFrame
+      id={id}
+      label={symbol ? `${label} (${symbol})` : label}
+      hint={hint}
+      error={error}
+      optional={optional}
+      className={className}
+    >
+      <div className="number-box">
+        <input
+          ref={field.ref}
+          id={id}
+          name={name}
+          type="text"
+          inputMode={signed ? 'text' : whole ? 'numeric' : 'decimal'}
+          autoComplete="off"
+          spellCheck={false}
+          className="input number-input"
+          value={shown}
+          placeholder={placeholder}
+          aria-invalid={error ? true : undefined}
+          aria-describedby={describedBy(hint !== undefined && `${id}-hint`, error && `${id}-error`)}
+          onChange={(event) => {
+            setTyping(event.target.value);
+            const typed = parseTyped(event.target.value);
+            if (typeof typed === 'number') field.onChange(unit ? unit.toBase(typed) : typed);
+            else field.onChange(typed);
+          }}
+          onBlur={() => {
+            setTyping(null);
+            field.onBlur();
+          }}
+        />
+        {symbol && (
+          <span className="number-unit" aria-hidden="true">
+            {symbol}
+          </span>
+        )}
+      </div>
+    </FieldFrame>
+  );
+}
+
+interface TextFieldProps {
+  name: Name;
+  label: string;
+  hint?: ReactNode;
+  optional?: boolean;
+  type?: 'text' | 'email' | 'tel';
+  autoComplete?: string;
+  className?: string;
+  inputClassName?: string;
+}
+
+export function TextField({ name, label, hint, optional, type = 'text', autoComplete, className, inputClassName }: TextFieldProps) {
+  const { register } = useFormContext<DraftValues>();
+  const error = useFieldError(name);
+  const id = fieldId(name);
+  return (
+    <FieldFrame id={id} label={label} hint={hint} error={error} optional={optional} className={className}>
+      <input
+        id={id}
+        type={type}
+        autoComplete={autoComplete ?? 'off'}
+        className={`input ${inputClassName ?? ''}`}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(hint !== undefined && `${id}-hint`, error && `${id}-error`)}
+        {...register(name)}
+      />
+    </FieldFrame>
+  );
+}
+
+export interface Option {
+  readonly value: string;
+  readonly label: string;
+}
+
+interface SelectFieldProps {
+  name: Name;
+  label: string;
+  options: readonly Option[];
+  hint?: ReactNode;
+  optional?: boolean;
+  /** First option with an empty value: nothing chosen yet, or "leave it to the engine". */
+  emptyLabel?: string;
+  /** Work that follows a choice (defaults of a service, units of a fuel). */
+  onChosen?: (value: string) => void;
+  className?: string;
+}
+
+export function SelectField({ name, label, options, hint, optional, emptyLabel, onChosen, className }: SelectFieldProps) {
+  const { register } = useFormContext<DraftValues>();
+  const error = useFieldError(name);
+  const id = fieldId(name);
+  const registered = register(name, {
+    setValueAs: (value: unknown) => (value === '' ? undefined : value),
+    onChange: (event: { target: { value: string } }) => onChosen?.(event.target.value),
+  } as RegisterOptions<DraftValues, Name>);
+  return (
+    <FieldFrame id={id} label={label} hint={hint} error={error} optional={optional} className={className}>
+      <select
+        id={id}
+        className="input select-input"
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(hint !== undefined && `${id}-hint`, error && `${id}-error`)}
+        {...registered}
+      >
+        {emptyLabel !== undefined && <option value="">{emptyLabel}</option>}
+        {options.map((option) => (
+          <option key={option.value} value={option.value}>
+            {option.label}
+          </option>
+        ))}
+      </select>
+    </FieldFrame>
+  );
+}
+
+interface ChoiceFieldProps {
+  name: Name;
+  legend: string;
+  options: readonly (Option & { readonly note?: string })[];
+  hint?: ReactNode;
+  onChosen?: (value: string) => void;
+  /** Side by side on wide screens. */
+  inline?: boolean;
+}
+
+/** A group of radio buttons in a fieldset; arrow keys move between them, as with any radio group. */
+export function ChoiceField({ name, legend, options, hint, onChosen, inline }: ChoiceFieldProps) {
+  const { register } = useFormContext<DraftValues>();
+  const error = useFieldError(name);
+  const id = fieldId(name);
+  const registered = register(name, {
+    onChange: (event: { target: { value: string } }) => onChosen?.(event.target.value),
+  } as RegisterOptions<DraftValues, Name>);
+  return (
+    <fieldset
+      className="field choice-group"
+      aria-describedby={describedBy(hint !== undefined && `${id}-hint`, error && `${id}-error`)}
+    >
+      <legend className="field-label">{legend}</legend>
+      {hint && (
+        <p id={`${id}-hint`} className="field-hint">
+          {hint}
+        </p>
+      )}
+      <div className={inline ? 'choice-row' : 'choice-column'}>
+        {options.map((option) => (
+          <label key={option.value} className="choice" htmlFor={`${id}-${option.value}`}>
+            <input
+              type="radio"
+              id={`${id}-${option.value}`}
+              value={option.value}
+              className="choice-input"
+              {...registered}
+            />
+            <span>
+              <span className="choice-label">{option.label}</span>
+              {option.note && <span className="choice-note">{option.note}</span>}
+            </span>
+          </label>
+        ))}
+      </div>
+      <FieldError id={`${id}-error`} message={error} />
+    </fieldset>
+  );
+}
+
+interface GuessToggleProps {
+  /** A `...Confidence` field of the engine: ticked means 'guessed'. */
+  name: Name;
+  label: string;
+}
+
+/**
+ * "This is a guess": marks the engine's confidence field 'guessed' (which widens the range);
+ * unticked leaves it to the engine's default for that field.
+ */
+export function GuessToggle({ name, label }: GuessToggleProps) {
+  const { field } = useController<DraftValues>({ name });
+  const id = fieldId(name);
+  return (
+    <label className="guess" htmlFor={id}>
+      <input
+        ref={field.ref}
+        id={id}
+        type="checkbox"
+        className="check-input"
+        checked={field.value === 'guessed'}
+        onChange={(event) => field.onChange(event.target.checked ? 'guessed' : undefined)}
+        onBlur={field.onBlur}
+      />
+      <span>{label}</span>
+    </label>
+  );
+}
+
+interface CheckFieldProps {
+  name: Name;
+  label: ReactNode;
+  hint?: ReactNode;
+}
+
+export function CheckField({ name, label, hint }: CheckFieldProps) {
+  const { register } = useFormContext<DraftValues>();
+  const error = useFieldError(name);
+  const id = fieldId(name);
+  return (
+    <div className="field">
+      <label className="check" htmlFor={id}>
+        <input
+          id={id}
+          type="checkbox"
+          className="check-input"
+          aria-invalid={error ? true : undefined}
+          aria-describedby={describedBy(hint !== undefined && `${id}-hint`, error && `${id}-error`)}
+          {...register(name)}
+        />
+        <span>{label}</span>
+      </label>
+      {hint && (
+        <p id={`${id}-hint`} className="field-hint check-hint">
+          {hint}
+        </p>
+      )}
+      <FieldError id={`${id}-error`} message={error} />
+    </div>
+  );
+}
