@@ -180,6 +180,8 @@ interface VitestReport {
 async function test(): Promise<void> {
   const config = await loadConfig('test');
   const started = Date.now();
+  // Each run's logs start empty, so a failure shows this run's lines only.
+  for (const name of ['postgres', 'web', 'worker', 'mail', 's3', 'build', 'check']) rmSync(path.join(config.stateDir, `${name}.log`), { force: true });
   const chromium = ensureChromium();
   await bringUpDatabase(config, { fresh: true });
   await startFakes(config);

@@ -35,11 +35,20 @@ export const plantDetailsSchema = z
       .min(1, { error: 'Enter the plant’s postal code.' })
       .max(16, { error: 'A postal code is at most 16 characters.' }),
   })
-  .superRefine((plant, ctx) => {
-    if (!isCountryCode(plant.countryCode)) return;
-    const normalised = normalisePostalCode(plant.countryCode, plant.postalCode);
-    if (!normalised.ok) ctx.addIssue({ code: 'custom', path: ['postalCode'], message: normalised.message });
-  });
+  .superRefine(
+    (plant, ctx) => {
+      if (!isCountryCode(plant.countryCode)) return;
+      const normalised = normalisePostalCode(plant.countryCode, plant.postalCode);
+      if (!normalised.ok) ctx.addIssue({ code: 'custom', path: ['postalCode'], message: normalised.message });
+    },
+    {
+      // Check the code as soon as country and code are themselves fine, even while other fields are not.
+      when: ({ value }) => {
+        const v = value as { countryCode?: unknown; postalCode?: unknown } | undefined;
+        return typeof v?.countryCode === 'string' && isCountryCode(v.countryCode) && typeof v.postalCode === 'string' && v.postalCode.trim() !== '';
+      },
+    },
+  );
 
 /** Who to contact; only the consultant who claims the assessment ever sees this. */
 export const contactSchema = z.object({

@@ -17,7 +17,7 @@ import type { LiveEstimate } from './store';
 import { liveStatus } from './SummaryStrip';
 import { useUnitSystem } from './fields';
 import { ChartPanel } from './charts/ChartPanel';
-import { cashFlow, cashFlowByYear, lifeCycleByThickness, lossByRun, temperatureProfile } from './charts/series';
+import { cashFlow, lifeCycleByThickness, lossByRun, temperatureProfile } from './charts/series';
 
 interface Props {
   live: LiveEstimate;
@@ -327,7 +327,7 @@ function Charts({ result, system }: { result: PlantResult; system: UnitSystem })
   const [chosenId, setChosenId] = useState<string | undefined>(undefined);
   const run = result.runs.find((r) => r.id === chosenId) ?? result.runs[0];
   const touchLimitC = run?.personnelProtection.touchLimitC ?? 60;
-  const years = cashFlowByYear(result);
+  const years = result.totals.cashFlow;
   const breakEven = years.find((y) => y.cumulative >= 0);
   const chooser = (
     <div className="field chart-chooser">

@@ -76,6 +76,33 @@ export function presentWorthFactor(horizonYears: number, discountRate: number, e
   return sum;
 }
 
+/**
+ * Cumulative cash flow of an insulation job: the installed cost in year 0, then a yearly
+ * saving that escalates with the fuel price, counted at year end and discounted the same way
+ * as {@link presentWorthFactor}, so the last present value is the life-cycle net saving.
+ */
+export function cashFlowByYear(
+  installedCost: number,
+  firstYearSaving: number,
+  horizonYears: number,
+  discountRate: number,
+  escalationRate: number,
+): { year: number; cumulative: number; cumulativePresentValue: number }[] {
+  let cumulative = -installedCost;
+  let presentValue = -installedCost;
+  let saving = firstYearSaving;
+  let discount = 1 + discountRate;
+  const years = [{ year: 0, cumulative, cumulativePresentValue: presentValue }];
+  for (let year = 1; year <= horizonYears; year++) {
+    cumulative += saving;
+    presentValue += saving / discount;
+    years.push({ year, cumulative, cumulativePresentValue: presentValue });
+    saving *= 1 + escalationRate;
+    discount *= 1 + discountRate;
+  }
+  return years;
+}
+
 /** Simple payback, years; null when nothing is saved. */
 export function simplePaybackYears(installedCost: number, annualCostSaving: number): number | null {
   return annualCostSaving > 0 ? installedCost / annualCostSaving : null;

@@ -31,7 +31,17 @@ export {
 } from './thickness';
 
 // A plant.
-export { estimatePlant, type PlantResult, type RunEstimate, type AnnualFigures, type Range, type ThicknessOption, type PlantWarning } from './plant';
+export {
+  estimatePlant,
+  type PlantResult,
+  type RunEstimate,
+  type AnnualFigures,
+  type Range,
+  type ThicknessOption,
+  type PlantWarning,
+  type FaceProfile,
+  type CashFlowYear,
+} from './plant';
 export { plantInputSchema, type PlantInput, type ParsedPlantInput, type PlantRunInput } from './plant-input';
 export { SERVICE_DEFAULTS, SERVICE_IDS, serviceDefaults, type ServiceDefaults, type ServiceId } from './services';
 export { CONFIDENCE_SPREADS, type Confidence } from './uncertainty';
@@ -59,6 +69,7 @@ export {
   fuelCostPerJoule,
   emissionKgPerJoule,
   presentWorthFactor,
+  cashFlowByYear,
   simplePaybackYears,
   installedCostPerMetre,
   fittingCoverCost,

@@ -4,6 +4,7 @@ import { FLANGE_PAIR_EQUIVALENT_LENGTH_M, VALVE_EQUIVALENT_LENGTH_M } from './da
 import type { EmissionSourceId, Fuel } from './data/fuels';
 import type { InsulationMaterial } from './data/insulation-materials';
 import {
+  cashFlowByYear,
   emissionKgPerJoule,
   fittingCoverCost,
   fuelCostPerJoule,
@@ -42,6 +43,25 @@ export interface AnnualFigures {
   readonly steamKgPerYear: number;
 }
 
+/**
+ * Temperatures of the faces heat crosses, from the inside of the pipe wall outward (inner
+ * wall, outer wall, the outer face of each layer; the last is the surface), with their
+ * diameters. The fluid is inside the first face, the air outside the last.
+ */
+export interface FaceProfile {
+  readonly faceDiametersM: readonly number[];
+  readonly faceTemperaturesC: readonly number[];
+}
+
+/** One year of the proposal's cash flow: the installed cost is paid in year 0. */
+export interface CashFlowYear {
+  readonly year: number;
+  /** Savings so far less the installed cost, with the fuel price escalating. */
+  readonly cumulative: number;
+  /** The same discounted to today; the last year equals the life-cycle net saving. */
+  readonly cumulativePresentValue: number;
+}
+
 /** One point of the thickness series of a run's proposed material. */
 export interface ThicknessOption {
   readonly thicknessM: number;
@@ -77,6 +97,8 @@ export interface RunEstimate {
     readonly heatLossWPerM: number;
     /** Hottest (or, cold lines, coldest) exposed surface, °C. */
     readonly surfaceTemperatureC: number;
+    /** Through the bare part of a damaged run; through the insulation of an insulated one. */
+    readonly profile: FaceProfile;
   };
   readonly proposed: AnnualFigures & {
     readonly material: string;
@@ -85,6 +107,7 @@ export interface RunEstimate {
     readonly heatLossWPerM: number;
     readonly surfaceTemperatureC: number;
     readonly coverFittings: boolean;
+    readonly profile: FaceProfile;
   };
   readonly savings: AnnualFigures;
   readonly installedCost: number;
@@ -132,6 +155,8 @@ export interface PlantResult {
     readonly installedCost: number;
     readonly simplePaybackYears: number | null;
     readonly lifeCycle: { readonly currentCost: number; readonly proposedCost: number; readonly netSaving: number };
+    /** Year 0 (the installed cost) to the horizon. */
+    readonly cashFlow: readonly CashFlowYear[];
   };
   /** Percentiles 10 / 90 of seeded Monte Carlo samples over the uncertain inputs; likely = point estimate. */
   readonly range: {
@@ -163,6 +188,11 @@ export interface PlantResult {
     readonly fuelEscalationPercent: number;
   };
   readonly warnings: readonly PlantWarning[];
+}
+
+/** The faces of a solved run, without the fluid's own entry. */
+function faceProfile(solution: { readonly interfaceDiametersM: readonly number[]; readonly interfaceTemperaturesC: readonly number[] }): FaceProfile {
+  return { faceDiametersM: solution.interfaceDiametersM, faceTemperaturesC: solution.interfaceTemperaturesC.slice(1) };
 }
 
 /** Per-joule rates that turn heat into money and carbon for one run. */
@@ -322,6 +352,7 @@ function estimateRun(run: ParsedPlantRun, ctx: PlantContext): { estimate: RunEst
   // Current state.
   let currentInsulatedWPerM = bareWPerM;
   let currentSurfaceC = bareResult.surfaceTemperatureC;
+  let currentProfile = faceProfile(bareResult);
   let bareFraction = 1;
   let hazards: RunWarning[] = bareResult.warnings.slice();
   if (run.current.state !== 'bare') {
@@ -333,6 +364,7 @@ function estimateRun(run: ParsedPlantRun, ctx: PlantContext): { estimate: RunEst
     bareFraction = run.current.state === 'damaged' ? run.current.bareFraction : 0;
     if (bareFraction === 0) {
       currentSurfaceC = solved.surfaceTemperatureC;
+      currentProfile = faceProfile(solved);
       hazards = solved.warnings.slice();
     } else {
       hazards = [...bareResult.warnings, ...solved.warnings.filter((w) => w.code.startsWith('MATERIAL_'))];
@@ -425,7 +457,13 @@ function estimateRun(run: ParsedPlantRun, ctx: PlantContext): { estimate: RunEst
     pipeOuterDiameterM: base.pipeOuterDiameterM,
     fittings: { valves: run.valves, flangePairs: run.flangePairs, equivalentLengthM: fittingLengthM },
     bare: { heatLossWPerM: bareResult.heatLossWPerM, surfaceTemperatureC: bareResult.surfaceTemperatureC },
-    current: { ...current, state: run.current.state, heatLossWPerM: sign * currentWPerM, surfaceTemperatureC: currentSurfaceC },
+    current: {
+      ...current,
+      state: run.current.state,
+      heatLossWPerM: sign * currentWPerM,
+      surfaceTemperatureC: currentSurfaceC,
+      profile: currentProfile,
+    },
     proposed: {
       ...proposed,
       material: material.id,
@@ -434,6 +472,7 @@ function estimateRun(run: ParsedPlantRun, ctx: PlantContext): { estimate: RunEst
       heatLossWPerM: proposedSolution.heatLossWPerM,
       surfaceTemperatureC: proposedSolution.surfaceTemperatureC,
       coverFittings,
+      profile: faceProfile(proposedSolution),
     },
     savings,
     installedCost,
@@ -634,6 +673,13 @@ export function estimatePlant(input: PlantInput): PlantResult {
     installedCost,
     simplePaybackYears: simplePaybackYears(installedCost, savings.annualCost),
     lifeCycle: { currentCost: currentLifeCycle, proposedCost: proposedLifeCycle, netSaving: currentLifeCycle - proposedLifeCycle },
+    cashFlow: cashFlowByYear(
+      installedCost,
+      savings.annualCost,
+      plant.economics.horizonYears,
+      plant.economics.discountRatePercent / 100,
+      plant.economics.fuelEscalationPercent / 100,
+    ),
   };
 
   const warnings: PlantWarning[] = [];

@@ -1,8 +1,6 @@
 /**
  * The four result charts as plain series: what each chart draws and what its table
- * alternative lists. Everything physical comes from the engine's PlantResult; the cash
- * flow only arranges the engine's yearly saving, installed cost and the plant's own
- * discount and escalation rates by year.
+ * alternative lists. Every figure comes from the engine's PlantResult.
  */
 import type { PlantResult, RunEstimate } from '../../../lib/engine';
 import { displayUnit, formatFigure, formatMoney, formatQuantity, type UnitSystem } from '../../../lib/units-display';
@@ -59,30 +57,41 @@ export function lossByRun(result: PlantResult, system: UnitSystem): ChartSpec {
 }
 
 /**
- * Temperatures from the fluid out to the air for one run, now and with the proposal. The
- * engine reports the fluid, surface and air temperatures of a run; the faces between pipe
- * wall and layers are not in its result yet, so the profile joins those three.
+ * Temperatures from the fluid out to the air for one run, face by face as heat crosses them
+ * (the engine's face profile), now and with the proposal. Where today's run has fewer layers
+ * than the proposal, its surface temperature carries across the missing layer: nothing is
+ * there to take a drop.
  */
 export function temperatureProfile(run: RunEstimate, system: UnitSystem, touchLimitC: number): ChartSpec {
   const unit = displayUnit('temperature', system);
   const air = run.air.temperatureC;
-  const labels = ['In the pipe', 'Outer surface', 'Surrounding air'];
+  const proposedFaces = run.proposed.profile.faceTemperaturesC;
+  const layerFaces = proposedFaces.length - 2;
+  const labels = [
+    'In the pipe',
+    'Pipe wall, inside',
+    'Pipe wall, outside',
+    ...Array.from({ length: layerFaces }, (_, i) => (layerFaces === 1 ? 'Insulation, outer face' : `Layer ${i + 1}, outer face`)),
+    'Surrounding air',
+  ];
+  const nowFaces = [...run.current.profile.faceTemperaturesC];
+  while (nowFaces.length < proposedFaces.length) nowFaces.push(nowFaces[nowFaces.length - 1] ?? run.fluidTemperatureC);
   const limit = run.cold
     ? { label: `Dew point of the air (${formatQuantity(run.air.dewPointC, 'temperature', system)})`, valueC: run.air.dewPointC, tone: 'frost' as const }
     : { label: `Touch limit (${formatQuantity(touchLimitC, 'temperature', system)})`, valueC: touchLimitC, tone: 'ember' as const };
   return {
     kind: 'line',
-    name: `Line chart: temperature from the ${run.cold ? 'cold line' : 'fluid'} out to the air for ${run.label}, now and with the proposed insulation, in ${unit.symbol}.`,
+    name: `Line chart: temperature from the ${run.cold ? 'cold line' : 'fluid'} out to the air, face by face, for ${run.label}, now and with the proposed insulation, in ${unit.symbol}.`,
     labels,
     series: [
       {
         label: 'Now',
-        values: [run.fluidTemperatureC, run.current.surfaceTemperatureC, air].map(unit.fromBase),
+        values: [run.fluidTemperatureC, ...nowFaces.slice(0, proposedFaces.length), air].map(unit.fromBase),
         tone: run.cold ? 'frost' : 'ember',
       },
       {
         label: 'With the proposed insulation',
-        values: [run.fluidTemperatureC, run.proposed.surfaceTemperatureC, air].map(unit.fromBase),
+        values: [run.fluidTemperatureC, ...proposedFaces, air].map(unit.fromBase),
         tone: 'mineral',
       },
       { label: limit.label, values: labels.map(() => unit.fromBase(limit.valueC)), tone: limit.tone, dashed: true },
@@ -117,38 +126,8 @@ export function lifeCycleByThickness(run: RunEstimate, system: UnitSystem, curre
   };
 }
 
-/** One year of the proposal's cash flow. */
-export interface CashFlowYear {
-  readonly year: number;
-  readonly cumulative: number;
-  readonly cumulativePresentValue: number;
-}
-
-/**
- * Cumulative cash flow of the whole proposal: the installed cost paid in year 0, then each
- * year's saving growing with fuel escalation; the present value discounts it at the plant's
- * rate (end-of-year amounts, as the engine's present-worth factor counts them), so its last
- * year equals the engine's life-cycle net saving.
- */
-export function cashFlowByYear(result: PlantResult): CashFlowYear[] {
-  const { horizonYears, discountRatePercent, fuelEscalationPercent } = result.assumptions;
-  const saving = result.totals.savings.annualCost;
-  const escalation = fuelEscalationPercent / 100;
-  const discount = discountRatePercent / 100;
-  let cumulative = -result.totals.installedCost;
-  let presentValue = cumulative;
-  const years: CashFlowYear[] = [{ year: 0, cumulative, cumulativePresentValue: presentValue }];
-  for (let year = 1; year <= horizonYears; year++) {
-    const cash = saving * (1 + escalation) ** (year - 1);
-    cumulative += cash;
-    presentValue += cash / (1 + discount) ** year;
-    years.push({ year, cumulative, cumulativePresentValue: presentValue });
-  }
-  return years;
-}
-
 export function cashFlow(result: PlantResult): ChartSpec {
-  const years = cashFlowByYear(result);
+  const years = result.totals.cashFlow;
   const { horizonYears, discountRatePercent, fuelEscalationPercent } = result.assumptions;
   return {
     kind: 'line',

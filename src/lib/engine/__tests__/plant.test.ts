@@ -188,3 +188,42 @@ describe('plant estimate', () => {
     }
   });
 });
+
+describe('the face profile and the cash flow of a plant estimate', () => {
+  const plant: PlantInput = {
+    energy: { fuel: 'natural-gas', price: 1.2, priceUnit: 'therm' },
+    economics: { horizonYears: 12, discountRatePercent: 6, fuelEscalationPercent: 3 },
+    runs: [
+      { id: 'hdr', label: 'Header', service: 'steam', pipe: { standard: 'ASME-B36.10M', size: '2' }, lengthM: 30 },
+      { id: 'gly', label: 'Glycol', service: 'glycol', pipe: { standard: 'ASTM-B88-L', size: '1' }, lengthM: 20 },
+    ],
+  };
+  const result = estimatePlant(plant);
+
+  it('runs from the inner wall to the surface, one face more for each insulation layer', () => {
+    for (const run of result.runs) {
+      expect(run.current.profile.faceTemperaturesC).toHaveLength(2);
+      expect(run.proposed.profile.faceTemperaturesC).toHaveLength(3);
+      expect(run.proposed.profile.faceDiametersM).toHaveLength(3);
+      expect(run.proposed.profile.faceTemperaturesC.at(-1)).toBeCloseTo(run.proposed.surfaceTemperatureC, 9);
+      expect(run.current.profile.faceTemperaturesC.at(-1)).toBeCloseTo(run.current.surfaceTemperatureC, 9);
+      const d = run.proposed.profile.faceDiametersM;
+      expect(d[0]! < d[1]! && d[1]! < d[2]!).toBe(true);
+      expect(d[1]).toBeCloseTo(run.pipeOuterDiameterM, 12);
+      // Temperature falls outward on a hot line and rises outward on a cold one.
+      const t = [run.fluidTemperatureC, ...run.proposed.profile.faceTemperaturesC, run.air.temperatureC];
+      for (let i = 1; i < t.length; i++) expect(run.cold ? t[i]! >= t[i - 1]! : t[i]! <= t[i - 1]!).toBe(true);
+    }
+  });
+
+  it('pays the installed cost in year 0 and ends, discounted, at the life-cycle net saving', () => {
+    const flow = result.totals.cashFlow;
+    expect(flow).toHaveLength(13);
+    expect(flow[0]).toEqual({ year: 0, cumulative: -result.totals.installedCost, cumulativePresentValue: -result.totals.installedCost });
+    expect(flow.at(-1)!.cumulativePresentValue).toBeCloseTo(result.totals.lifeCycle.netSaving, 6);
+    const firstYear = flow[1]!.cumulative - flow[0]!.cumulative;
+    const secondYear = flow[2]!.cumulative - flow[1]!.cumulative;
+    expect(firstYear).toBeCloseTo(result.totals.savings.annualCost, 6);
+    expect(secondYear / firstYear).toBeCloseTo(1.03, 12);
+  });
+});
