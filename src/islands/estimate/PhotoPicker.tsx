@@ -28,7 +28,8 @@ export function PhotoPicker({ runId, runTitle }: Props) {
       </label>
       <p id={`${id}-hint`} className="field-hint">
         Photos are not kept if you reload the page; add them last. JPEG, PNG, WebP, HEIC or PDF, up to{' '}
-        {Math.round(MAX_PHOTO_BYTES / (1024 * 1024))} MB each and {MAX_PHOTOS} in all.
+        {Math.round(MAX_PHOTO_BYTES / (1024 * 1024))} MB each and {MAX_PHOTOS} in all. Photos lose their location data
+        when stored; a PDF is kept exactly as sent.
       </p>
       <input
         ref={input}
