@@ -3,7 +3,7 @@ import { btuPerHourToWatts, fuelEnergyJ, annualEnergyJ, lookupPipe, solveRun, VA
 import { expectWithin, type ReferenceRow } from './reference-rows';
 
 const DOE17 =
-  "US DOE Steam Tip Sheet #17 'Install Removable Insulation on Valves and Fittings', table of savings from 1-in removable valve covers (150-lb flanged valve, 65 °F still air) — cells from memory via a secondary transcription (references.md §4)";
+  "US DOE Steam Tip Sheet #17 'Install Removable Insulation on Valves and Fittings', table of savings from 1-in removable valve covers (150-lb flanged valve, 65 °F still air) — cells from memory via a secondary copy of the table (references.md §4)";
 
 /** Saving of a 1-in cover: the valve's equivalent bare length, bare (ε 0.8) minus covered (glass fibre, fabric ε 0.9). */
 function coverSavingW(nps: number, surfaceC: number): number {
@@ -47,7 +47,7 @@ const rows: ReferenceRow<{ nps: number; surfaceC: number }>[] = (
 // and 4-in at 400 °F (+32 %). The table's own growth with size says small valves
 // are worth less than 1.2 m of pipe; the 3-in/400 °F cell also repeats the
 // 10-in/200 °F value exactly and 4-in/400 °F breaks the table's size trend, so
-// the transcription is in doubt (references.md flags it). Kept as expected misses.
+// that copy of the table is in doubt (references.md flags it). Kept as expected misses.
 const KNOWN_MISSES = new Set(['T4-DOE17-3in-200F', 'T4-DOE17-3in-300F', 'T4-DOE17-3in-400F', 'T4-DOE17-4in-400F']);
 
 describe('valve covers against US DOE Steam Tip Sheet #17 (±20 %)', () => {
