@@ -13,7 +13,7 @@ import { describeForLog, isUniqueViolation } from '../../db/errors';
 import type { AssessmentStatus } from '../../db/schema';
 import { inTransaction } from '../../db/transaction';
 import type { CreateAssessment } from '../../schemas/assessment';
-import { ENGINE_VERSION, estimatePlant } from '../engine';
+import { ENGINE_VERSION, estimateParsedPlant } from '../engine';
 import { DomainError } from '../errors';
 import { enqueue, jobNames } from '../jobs/queue';
 import { normalisePostalCode, type CountryCode } from '../routing/postal-code';
@@ -95,7 +95,7 @@ export async function submitAssessment(
   const postal = normalisePostalCode(input.plant.countryCode as CountryCode, input.plant.postalCode);
   if (!postal.ok) throw new DomainError('UNPROCESSABLE', postal.message, 'plant.postalCode');
 
-  const result = estimatePlant(input.estimate);
+  const result = estimateParsedPlant(input.estimate);
   const spam = Boolean(input.website?.trim());
   const assessmentId = randomUUID();
 

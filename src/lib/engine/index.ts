@@ -33,6 +33,7 @@ export {
 // A plant.
 export {
   estimatePlant,
+  estimateParsedPlant,
   type PlantResult,
   type RunEstimate,
   type AnnualFigures,

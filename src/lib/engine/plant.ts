@@ -610,7 +610,14 @@ export function estimatePlant(input: PlantInput): PlantResult {
     }));
     throw new EngineError('INVALID_INPUT', issues.map((i) => i.message).join(' '), issues);
   }
-  const plant = parsed.data;
+  return estimateParsedPlant(parsed.data);
+}
+
+/**
+ * The estimate of a plant already parsed with {@link plantInputSchema} (an endpoint that has
+ * just parsed the request), so the input is not checked twice.
+ */
+export function estimateParsedPlant(plant: ParsedPlantInput): PlantResult {
   const fuel = findFuel(plant.energy.fuel) as Fuel;
   const electricity = findFuel('electricity') as Fuel;
   const source: EmissionSourceId = plant.energy.emissionFactorSource ?? 'us-epa-2024';

@@ -1,4 +1,4 @@
-import { ENGINE_VERSION, estimatePlant, plantInputSchema } from '../../lib/engine';
+import { ENGINE_VERSION, estimateParsedPlant, plantInputSchema } from '../../lib/engine';
 import { endpoint, json, parseJsonBody } from '../../lib/http';
 
 export const prerender = false;
@@ -6,5 +6,5 @@ export const prerender = false;
 /** The estimate for a plant as the form describes it; nothing is stored. */
 export const POST = endpoint(async ({ request }) => {
   const input = await parseJsonBody(request, plantInputSchema);
-  return json({ engineVersion: ENGINE_VERSION, result: estimatePlant(input) });
+  return json({ engineVersion: ENGINE_VERSION, result: estimateParsedPlant(input) });
 });

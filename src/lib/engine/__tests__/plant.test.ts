@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import {
   annualEnergyJ,
   estimatePlant,
+  estimateParsedPlant,
+  plantInputSchema,
   EngineError,
   fuelCostPerJoule,
   FUELS,
@@ -225,5 +227,15 @@ describe('the face profile and the cash flow of a plant estimate', () => {
     const secondYear = flow[2]!.cumulative - flow[1]!.cumulative;
     expect(firstYear).toBeCloseTo(result.totals.savings.annualCost, 6);
     expect(secondYear / firstYear).toBeCloseTo(1.03, 12);
+  });
+});
+
+describe('estimateParsedPlant', () => {
+  it('gives what estimatePlant gives, for input already parsed by plantInputSchema', () => {
+    const input: PlantInput = {
+      energy: { fuel: 'natural-gas', price: 0.9, priceUnit: 'therm' },
+      runs: [{ id: 'a', label: 'Header', service: 'steam', pipe: { standard: 'ASME-B36.10M', size: '3' }, lengthM: 12, lengthConfidence: 'guessed' }],
+    };
+    expect(estimateParsedPlant(plantInputSchema.parse(input))).toEqual(estimatePlant(input));
   });
 });
