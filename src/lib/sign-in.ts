@@ -32,6 +32,7 @@ export const passwordSignInSchema = z.object({
     .toLowerCase()
     .pipe(z.email({ error: 'Enter an e-mail address like name@firm.com.' })),
   password: z.string({ error: 'Enter your password.' }).min(1, { error: 'Enter your password.' }).max(200),
+  next: nextPathSchema.optional(),
 });
 
 /**
@@ -48,6 +49,13 @@ export async function requestSignInLink(email: string, nextPath: string, clientA
     await getAuth().api.signInMagicLink({ body: { email, callbackURL: nextPath }, headers: new Headers() });
   }
   return 'sent';
+}
+
+/** The sign-in page with a message, keeping where the visitor was going. */
+export function signInPageUrl(query: Record<string, string>, next: unknown, anchor: 'owner' | 'team'): string {
+  const params = new URLSearchParams(query);
+  if (typeof next === 'string' && next) params.set('next', nextPathSchema.parse(next));
+  return `/sign-in?${params.toString()}#${anchor}`;
 }
 
 /** The page a role lands on after signing in. */

@@ -28,6 +28,23 @@ describe('signing in from the sign-in page', () => {
     expect(html).toContain('consultant');
   });
 
+  it('a visitor sent to sign in from a page goes back to it, and a crafted address elsewhere is ignored', async () => {
+    const page = await (await appFetch('/sign-in?next=%2Fmy%2Fassessments')).text();
+    expect(page).toContain('name="next" value="/my/assessments"');
+    const back = await postForm('/api/sign-in/password', {
+      email: 'priya@raman-audits.example',
+      password: DEMO_PASSWORD,
+      next: '/my/assessments',
+    });
+    expect(back.headers.get('location')).toBe('/my/assessments');
+    const away = await postForm('/api/sign-in/password', {
+      email: 'priya@raman-audits.example',
+      password: DEMO_PASSWORD,
+      next: '//elsewhere.example/steal',
+    });
+    expect(away.headers.get('location')).toBe('/my/assessments');
+  });
+
   it('a wrong password goes back to the form with a message, and no session', async () => {
     const response = await postForm('/api/sign-in/password', { email: 'marisol@quintero-thermal.example', password: 'not-the-password' });
     expect(response.status).toBe(303);
