@@ -1,14 +1,13 @@
 /**
  * The wrapper every endpoint goes through: parse with zod → 400 listing each issue with its
- * field path; no user → 401; no permission → 403; known domain and engine errors → their
- * status; anything else is logged and answered without internals.
+ * field path; known domain and engine errors → their status; anything else is logged and
+ * answered without internals.
  */
 import type { APIContext, APIRoute } from 'astro';
 import { z } from 'zod';
 import { isEngineError } from './engine';
 import { describeForLog, isDatabaseUnavailable } from '../db/errors';
 import { DomainError, type DomainErrorCode } from './errors';
-import { can, type Resource } from './permissions';
 
 export interface Issue {
   path: string;
@@ -115,25 +114,10 @@ export function responseForError(error: unknown, context: { method: string; path
   return errorResponse(500, 'INTERNAL', 'Something went wrong on our side; nothing was changed. Please try again.');
 }
 
-export interface Guard<R extends Resource = Resource> {
-  resource: R;
-  action: string;
-}
-
-/** Wraps a handler: catches and maps errors, and checks sign-in and permission when asked. */
-export function endpoint(
-  handler: (context: APIContext) => Promise<Response> | Response,
-  guard?: { resource: Resource; action: string },
-): APIRoute {
+/** Wraps a handler: whatever it throws is mapped to the answer the caller gets. */
+export function endpoint(handler: (context: APIContext) => Promise<Response> | Response): APIRoute {
   return async (context) => {
     try {
-      if (guard) {
-        const user = context.locals.user;
-        if (!user) return errorResponse(401, 'UNAUTHENTICATED', 'Sign in first.');
-        if (!can(user.role, guard.resource, guard.action as never)) {
-          return errorResponse(403, 'FORBIDDEN', 'Your account may not do this.');
-        }
-      }
       return await handler(context);
     } catch (error) {
       return responseForError(error, { method: context.request.method, path: context.url.pathname });
