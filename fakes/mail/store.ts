@@ -6,6 +6,7 @@
 import { createHash } from 'node:crypto';
 import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
+import type { ParsedEmail } from './resend-api.ts';
 
 export interface StoredAttachment {
   id: string;
@@ -17,20 +18,11 @@ export interface StoredAttachment {
   content: string;
 }
 
-export interface StoredMessage {
+/** A parsed request as it is kept: its attachments decoded and measured. */
+export interface StoredMessage extends Omit<ParsedEmail, 'attachments'> {
   object: 'email';
   id: string;
   created_at: string;
-  from: string;
-  to: string[];
-  cc: string[] | null;
-  bcc: string[] | null;
-  reply_to: string[] | null;
-  subject: string;
-  html: string | null;
-  text: string | null;
-  headers: Record<string, string> | null;
-  tags: { name: string; value: string }[] | null;
   attachments: StoredAttachment[];
 }
 

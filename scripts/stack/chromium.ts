@@ -1,7 +1,7 @@
 /** Browser tests drive Debian's chromium through playwright-core; no browser is downloaded. */
 import { existsSync } from 'node:fs';
 import { aptInstall, canInstallPackages } from './debian.ts';
-import { StackError } from './postgres.ts';
+import { StackError } from './errors.ts';
 
 const candidates = ['/usr/bin/chromium', '/usr/bin/chromium-browser'];
 

@@ -8,7 +8,8 @@ import path from 'node:path';
 import { migrateDatabase } from '../../src/db/migrate.ts';
 import { appUrl, databaseUrl, loadConfig, projectRoot, stateRoot, type StackConfig } from './config.ts';
 import { ensureChromium } from './chromium.ts';
-import { clusterDir, ensureDatabase, ensurePostgresInstalled, initCluster, StackError, startPostgres } from './postgres.ts';
+import { StackError } from './errors.ts';
+import { clusterDir, ensureDatabase, ensurePostgresInstalled, initCluster, startPostgres } from './postgres.ts';
 import {
   appEnvironment,
   mailFakeSpec,

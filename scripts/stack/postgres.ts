@@ -9,10 +9,9 @@ import pg from 'pg';
 import type { StackConfig } from './config.ts';
 import type { Supervisor } from './supervisor.ts';
 import { aptInstall, canInstallPackages } from './debian.ts';
+import { StackError } from './errors.ts';
 
 const isRoot = process.getuid?.() === 0;
-
-export class StackError extends Error {}
 
 function findBinDir(): string | undefined {
   const base = '/usr/lib/postgresql';

@@ -5,6 +5,7 @@
  */
 import path from 'node:path';
 import { appUrl, databaseUrl, projectRoot, type StackConfig } from './config.ts';
+import type { ServiceSpec } from './supervisor.ts';
 
 /** A real mail service is used when its key is given and no local base URL overrides it. */
 export function usesRealMail(): boolean {
@@ -69,44 +70,34 @@ export function tsxCommand(script: string): [string, string[]] {
   return [process.execPath, ['--import', 'tsx', path.join(projectRoot, script)]];
 }
 
-export function mailFakeSpec(config: StackConfig) {
-  const [command, args] = tsxCommand('fakes/mail/server.ts');
-  return {
-    name: 'mail',
-    command,
-    args,
-    cwd: projectRoot,
-    env: {
-      ...process.env,
-      FAKE_MAIL_PORT: String(config.mailPort),
-      FAKE_MAIL_HOST: '127.0.0.1',
-      FAKE_MAIL_DATA_DIR: path.join(config.stateDir, 'mail'),
-    },
-    logFile: logFileFor(config, 'mail'),
-  };
+/** A TypeScript program of ours, run with tsx from the project root. */
+function tsxService(config: StackConfig, name: string, script: string, env: NodeJS.ProcessEnv): ServiceSpec {
+  const [command, args] = tsxCommand(script);
+  return { name, command, args, cwd: projectRoot, env, logFile: logFileFor(config, name) };
 }
 
-export function storageFakeSpec(config: StackConfig) {
-  const [command, args] = tsxCommand('fakes/s3/server.ts');
-  return {
-    name: 's3',
-    command,
-    args,
-    cwd: projectRoot,
-    env: {
-      ...process.env,
-      FAKE_S3_PORT: String(config.s3Port),
-      FAKE_S3_HOST: '127.0.0.1',
-      FAKE_S3_DATA_DIR: path.join(config.stateDir, 's3'),
-      FAKE_S3_BUCKETS: 'lagwise-uploads',
-      FAKE_S3_ACCESS_KEY_ID: config.secrets.s3AccessKeyId,
-      FAKE_S3_SECRET_ACCESS_KEY: config.secrets.s3SecretAccessKey,
-    },
-    logFile: logFileFor(config, 's3'),
-  };
+export function mailFakeSpec(config: StackConfig): ServiceSpec {
+  return tsxService(config, 'mail', 'fakes/mail/server.ts', {
+    ...process.env,
+    FAKE_MAIL_PORT: String(config.mailPort),
+    FAKE_MAIL_HOST: '127.0.0.1',
+    FAKE_MAIL_DATA_DIR: path.join(config.stateDir, 'mail'),
+  });
 }
 
-export function webServerSpec(config: StackConfig) {
+export function storageFakeSpec(config: StackConfig): ServiceSpec {
+  return tsxService(config, 's3', 'fakes/s3/server.ts', {
+    ...process.env,
+    FAKE_S3_PORT: String(config.s3Port),
+    FAKE_S3_HOST: '127.0.0.1',
+    FAKE_S3_DATA_DIR: path.join(config.stateDir, 's3'),
+    FAKE_S3_BUCKETS: 'lagwise-uploads',
+    FAKE_S3_ACCESS_KEY_ID: config.secrets.s3AccessKeyId,
+    FAKE_S3_SECRET_ACCESS_KEY: config.secrets.s3SecretAccessKey,
+  });
+}
+
+export function webServerSpec(config: StackConfig): ServiceSpec {
   return {
     name: 'web',
     command: process.execPath,
@@ -117,14 +108,6 @@ export function webServerSpec(config: StackConfig) {
   };
 }
 
-export function workerSpec(config: StackConfig) {
-  const [command, args] = tsxCommand('src/worker.ts');
-  return {
-    name: 'worker',
-    command,
-    args,
-    cwd: projectRoot,
-    env: appEnvironment(config),
-    logFile: logFileFor(config, 'worker'),
-  };
+export function workerSpec(config: StackConfig): ServiceSpec {
+  return tsxService(config, 'worker', 'src/worker.ts', appEnvironment(config));
 }
