@@ -5,7 +5,7 @@
  * no test depends on timing. The plant is an invented one (a creamery in the
  * made-up town of Wrenfold).
  */
-import { estimatePlant, solveRun, type PlantInput, type RunInput } from '../src/lib/engine/index';
+import { estimatePlant, solveRun, type PlantInput, type RunInput } from '../src/engine/index';
 
 function median(values: number[]): number {
   const sorted = [...values].sort((a, b) => a - b);

@@ -1,7 +1,7 @@
 #!/usr/bin/env python3
 """Reference table: ASME B36.10M / B36.19M pipe dimensions from Debian's python3-fluids.
 
-Writes src/lib/engine/__tests__/fixtures/asme-b36-dimensions.json (or prints it
+Writes src/engine/__tests__/fixtures/asme-b36-dimensions.json (or prints it
 with --stdout): outside diameter and wall, mm, per NPS and schedule, read from
 fluids.piping's B36.10M/B36.19M tables. The engine's own (inch) table is checked
 against it. Run with /usr/bin/python3.
@@ -31,6 +31,6 @@ text = json.dumps(table, indent=1) + "\n"
 if "--stdout" in sys.argv:
     sys.stdout.write(text)
 else:
-    out = Path(__file__).resolve().parents[2] / "src/lib/engine/__tests__/fixtures/asme-b36-dimensions.json"
+    out = Path(__file__).resolve().parents[2] / "src/engine/__tests__/fixtures/asme-b36-dimensions.json"
     out.write_text(text)
     print(f"wrote {len(rows)} rows to {out}")

@@ -1,7 +1,7 @@
 #!/usr/bin/env python3
 """Reference table: IAPWS-IF97 saturation properties from Debian's python3-iapws.
 
-Writes src/lib/engine/__tests__/fixtures/iapws-if97-saturation.json (or prints it
+Writes src/engine/__tests__/fixtures/iapws-if97-saturation.json (or prints it
 with --stdout). The engine's own IF97 code is checked against this table; the
 table is committed so the tests run where python3-iapws is not installed.
 Run with /usr/bin/python3 (Debian's python, where python3-iapws lives).
@@ -40,6 +40,6 @@ text = json.dumps(table, indent=1) + "\n"
 if "--stdout" in sys.argv:
     sys.stdout.write(text)
 else:
-    out = Path(__file__).resolve().parents[2] / "src/lib/engine/__tests__/fixtures/iapws-if97-saturation.json"
+    out = Path(__file__).resolve().parents[2] / "src/engine/__tests__/fixtures/iapws-if97-saturation.json"
     out.write_text(text)
     print(f"wrote {len(rows)} rows to {out}")

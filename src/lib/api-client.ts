@@ -3,7 +3,7 @@
  * success with the typed body, or to a failure carrying the status, the error code and
  * each issue with its field path — so a 4xx never throws into a component.
  */
-import type { PlantInput, PlantResult } from './engine';
+import type { PlantInput, PlantResult } from '../engine';
 
 /** One field-level problem, as every 400 lists them: `{ path: 'runs.2.lengthM', message }`. */
 export interface ApiIssue {

@@ -5,7 +5,7 @@
  */
 import type { APIContext, APIRoute } from 'astro';
 import { z } from 'zod';
-import { isEngineError } from './engine';
+import { isEngineError } from '../engine';
 import { describeForLog, isDatabaseUnavailable } from '../db/errors';
 import { DomainError, type DomainErrorCode } from './errors';
 

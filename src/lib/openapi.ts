@@ -4,7 +4,7 @@
  */
 import { z } from 'zod';
 import { createAssessmentSchema } from '../schemas/assessment';
-import { ENGINE_VERSION, plantInputSchema } from './engine';
+import { ENGINE_VERSION, plantInputSchema } from '../engine';
 import { APP_VERSION } from './site';
 
 const inputSchema = (schema: z.ZodType) => z.toJSONSchema(schema, { io: 'input', unrepresentable: 'any', target: 'draft-2020-12' });

@@ -3,7 +3,7 @@
  * digits, thousands separators, currency. The engine keeps SI at full precision; these
  * helpers convert (with the engine's own factors) only for display and entry.
  */
-import { celsiusToFahrenheit, fahrenheitToCelsius, fromSI, toSI } from './engine';
+import { celsiusToFahrenheit, fahrenheitToCelsius, fromSI, toSI } from '../engine';
 
 /** The two ways a person can read the figures. */
 export type UnitSystem = 'SI' | 'US';

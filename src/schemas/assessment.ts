@@ -3,7 +3,7 @@
  * POST /api/assessments. The estimate itself is the engine's own PlantInput schema.
  */
 import { z } from 'zod';
-import { plantInputSchema } from '../lib/engine';
+import { plantInputSchema } from '../engine';
 import { countryCodes, isCountryCode, normalisePostalCode, postalFormats } from '../lib/routing/postal-code';
 
 export const plantTypes = [

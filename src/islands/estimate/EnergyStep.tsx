@@ -1,6 +1,6 @@
 /** Step 2: what the boiler burns, what it costs in the person's own unit, and how efficiently. */
 import { useFormContext, useWatch } from 'react-hook-form';
-import { FUELS, type FuelId, type FuelPriceUnit } from '../../lib/engine';
+import { FUELS, type FuelId, type FuelPriceUnit } from '../../engine';
 import { formatFigure } from '../../lib/units-display';
 import { CURRENCIES, defaultPriceUnit, fuelById, type DraftValues } from './draft';
 import { GuessToggle, NumberField, SelectField, useUnitSystem } from './fields';

@@ -3,7 +3,7 @@
  * hazards, run by run, the charts and the cautions.
  */
 import { useState, type ReactNode } from 'react';
-import { INSULATION_MATERIALS, SERVICE_DEFAULTS, SURFACES, type PlantResult, type RunEstimate } from '../../lib/engine';
+import { INSULATION_MATERIALS, SERVICE_DEFAULTS, SURFACES, type PlantResult, type RunEstimate } from '../../engine';
 import {
   formatCo2,
   formatFigure,

@@ -10,7 +10,7 @@ import {
   type PipeSizeEntry,
   type PipeStandard,
   type ServiceId,
-} from '../../lib/engine';
+} from '../../engine';
 import { displayUnit, formatForInput, formatQuantity, type DisplayQuantity, type UnitSystem } from '../../lib/units-display';
 import { existingInsulationDefaults, pipeStandard, serviceCondition, type DraftValues } from './draft';
 import { ChoiceField, CheckField, GuessToggle, NumberField, SelectField, TextField, useHasErrorUnder, useUnitSystem, type Option } from './fields';

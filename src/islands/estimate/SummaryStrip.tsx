@@ -3,7 +3,7 @@
  * of each new result for people using a screen reader.
  */
 import { useEffect, useRef, useState } from 'react';
-import type { PlantResult } from '../../lib/engine';
+import type { PlantResult } from '../../engine';
 import { formatMoney, formatRange, formatYears } from '../../lib/units-display';
 import type { LiveEstimate } from './store';
 

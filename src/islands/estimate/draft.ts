@@ -14,7 +14,7 @@ import {
   type PlantInput,
   type PlantRunInput,
   type ServiceId,
-} from '../../lib/engine';
+} from '../../engine';
 import { createAssessmentSchema, type CreateAssessmentInput } from '../../schemas/assessment';
 import type { UnitSystem } from '../../lib/units-display';
 

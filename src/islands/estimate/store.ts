@@ -6,7 +6,7 @@
 import { atom, map } from 'nanostores';
 import { persistentAtom } from '@nanostores/persistent';
 import { requestEstimate, submitAssessment, type ApiFailure, type SubmittedAssessment } from '../../lib/api-client';
-import type { PlantInput, PlantResult } from '../../lib/engine';
+import type { PlantInput, PlantResult } from '../../engine';
 import { MAX_PHOTO_BYTES, MAX_PHOTOS, PHOTO_FIELD } from '../../schemas/assessment';
 import {
   freshValues,

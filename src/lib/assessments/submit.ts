@@ -13,7 +13,7 @@ import { describeForLog, isUniqueViolation } from '../../db/errors';
 import type { AssessmentStatus } from '../../db/schema';
 import { inTransaction } from '../../db/transaction';
 import type { CreateAssessment } from '../../schemas/assessment';
-import { ENGINE_VERSION, estimateParsedPlant } from '../engine';
+import { ENGINE_VERSION, estimateParsedPlant } from '../../engine';
 import { DomainError } from '../errors';
 import { enqueue, jobNames } from '../jobs/queue';
 import { normalisePostalCode, type CountryCode } from '../routing/postal-code';

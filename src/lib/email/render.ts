@@ -7,7 +7,7 @@ import { createElement, type ReactElement } from 'react';
 import { getDb } from '../../db/client';
 import { getAssessmentForMail } from '../../db/queries/assessments';
 import { plantTypes } from '../../schemas/assessment';
-import { serviceDefaults, type PlantResult, type ServiceId } from '../engine';
+import { serviceDefaults, type PlantResult, type ServiceId } from '../../engine';
 import { formatMoney, formatYears } from '../units-display';
 import { appBaseUrl } from '../site';
 import type { RenderedEmail } from './mailer';

@@ -1,4 +1,4 @@
-import { ENGINE_VERSION, estimateParsedPlant, plantInputSchema } from '../../lib/engine';
+import { ENGINE_VERSION, estimateParsedPlant, plantInputSchema } from '../../engine';
 import { endpoint, json, parseJsonBody } from '../../lib/http';
 
 export const prerender = false;

@@ -2,7 +2,7 @@
  * The four result charts as plain series: what each chart draws and what its table
  * alternative lists. Every figure comes from the engine's PlantResult.
  */
-import type { PlantResult, RunEstimate } from '../../../lib/engine';
+import type { PlantResult, RunEstimate } from '../../../engine';
 import { displayUnit, formatFigure, formatMoney, formatQuantity, type UnitSystem } from '../../../lib/units-display';
 
 /** Colours are our tokens, named here and resolved from the stylesheet where the chart is drawn. */

@@ -101,7 +101,7 @@ describe('saturation temperature and latent heat (IAPWS-IF97)', () => {
     expect(() => saturatedSteam(17000)).toThrow(/outside what this estimate covers/);
   });
 
-  const script = fileURLToPath(new URL('../../../../scripts/reference/iapws_saturation.py', import.meta.url));
+  const script = fileURLToPath(new URL('../../../scripts/reference/iapws_saturation.py', import.meta.url));
   const hasIapws = (() => {
     if (!existsSync('/usr/bin/python3')) return false;
     try {
