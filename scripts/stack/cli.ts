@@ -9,7 +9,7 @@ import { migrateDatabase } from '../../src/db/migrate.ts';
 import { appUrl, databaseUrl, loadConfig, projectRoot, stateRoot, type StackConfig } from './config.ts';
 import { ensureChromium } from './chromium.ts';
 import { StackError } from './errors.ts';
-import { clusterDir, ensureDatabase, ensurePostgresInstalled, initCluster, startPostgres } from './postgres.ts';
+import { clusterDir, clusterIsOutside, outsideClusterRoot, ensureDatabase, ensurePostgresInstalled, initCluster, startPostgres } from './postgres.ts';
 import {
   appEnvironment,
   mailFakeSpec,
@@ -83,8 +83,12 @@ function printTail(file: string, lines = 40): void {
 async function bringUpDatabase(config: StackConfig, { fresh }: { fresh: boolean }): Promise<void> {
   const binDir = ensurePostgresInstalled();
   initCluster(binDir, config);
+  if (clusterIsOutside(config)) {
+    say(`the postgres system user cannot enter ${config.stateDir}, so PostgreSQL keeps its data in ${clusterDir(config)}`);
+  }
   await startPostgres(binDir, config, supervisor);
-  say(`PostgreSQL up on 127.0.0.1:${config.pgPort} (data in ${path.relative(projectRoot, clusterDir(config))})`);
+  const where = clusterIsOutside(config) ? clusterDir(config) : path.relative(projectRoot, clusterDir(config));
+  say(`PostgreSQL up on 127.0.0.1:${config.pgPort} (data in ${where})`);
   await ensureDatabase(config, { fresh });
   await migrateDatabase(databaseUrl(config), {
     migrationsFolder: path.join(projectRoot, 'drizzle'),
@@ -225,10 +229,12 @@ async function test(): Promise<void> {
 
 function reset(): void {
   const dir = path.join(stateRoot(), 'demo');
-  if (existsSync(path.join(dir, 'pg', 'postmaster.pid'))) {
+  const clusters = [path.join(dir, 'pg'), path.join(outsideClusterRoot(dir), 'pg')];
+  if (clusters.some((cluster) => existsSync(path.join(cluster, 'postmaster.pid')))) {
     throw new StackError('The demo database looks like it is running; stop `npm start` (Ctrl-C) first, then reset.');
   }
   rmSync(dir, { recursive: true, force: true });
+  rmSync(path.dirname(clusters[1]!), { recursive: true, force: true });
   say(`wiped ${path.relative(projectRoot, dir)}; the next \`npm start\` begins with fresh demo data.`);
 }
 

@@ -3,6 +3,7 @@
  * initialised in the profile's git-ignored folder, listening on 127.0.0.1 only.
  */
 import { execFileSync, spawnSync } from 'node:child_process';
+import { createHash } from 'node:crypto';
 import { chownSync, existsSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import pg from 'pg';
@@ -53,14 +54,46 @@ function chownToPostgres(target: string): void {
   chownSync(target, uid, gid);
 }
 
+/** Whether the `postgres` system user can enter `folder` (every parent on the way must let it through). */
+function postgresCanEnter(folder: string): boolean {
+  return spawnSync('runuser', ['-u', 'postgres', '--', 'test', '-x', folder]).status === 0;
+}
+
+const reachable = new Map<string, boolean>();
+
+/**
+ * Where PostgreSQL keeps its data: in the profile's folder, or — when we are root in a folder
+ * the `postgres` user cannot enter (a clone in /root, mode 700) — under /var/tmp, in a folder
+ * named after this checkout so two clones never share a cluster.
+ */
 export function clusterDir(config: StackConfig): string {
-  return path.join(config.stateDir, 'pg');
+  const inState = path.join(config.stateDir, 'pg');
+  if (!isRoot) return inState;
+  let ok = reachable.get(config.stateDir);
+  if (ok === undefined) {
+    ok = postgresCanEnter(config.stateDir);
+    reachable.set(config.stateDir, ok);
+  }
+  return ok ? inState : path.join(outsideClusterRoot(config.stateDir), 'pg');
+}
+
+/** The /var/tmp folder standing in for a state folder the postgres user cannot reach. */
+export function outsideClusterRoot(stateDir: string): string {
+  const tag = createHash('sha256').update(path.resolve(stateDir)).digest('hex').slice(0, 12);
+  return path.join('/var/tmp', `lagwise-${tag}`, path.basename(stateDir));
+}
+
+/** True when the cluster lives outside the project (see clusterDir). */
+export function clusterIsOutside(config: StackConfig): boolean {
+  return clusterDir(config) !== path.join(config.stateDir, 'pg');
 }
 
 export function initCluster(binDir: string, config: StackConfig): void {
   const dataDir = clusterDir(config);
   if (existsSync(path.join(dataDir, 'PG_VERSION'))) return;
   rmSync(dataDir, { recursive: true, force: true });
+  // Parents readable by all (so the postgres user can pass), the cluster itself closed.
+  mkdirSync(path.dirname(dataDir), { recursive: true, mode: 0o755 });
   mkdirSync(dataDir, { recursive: true, mode: 0o700 });
   chownToPostgres(dataDir);
   if (isRoot && spawnSync('runuser', ['-u', 'postgres', '--', 'test', '-w', dataDir]).status !== 0) {
@@ -69,7 +102,8 @@ export function initCluster(binDir: string, config: StackConfig): void {
         'Set LAGWISE_STATE_DIR to a folder it can reach (for example /var/tmp/lagwise) or clone the project outside /root.',
     );
   }
-  const pwFile = path.join(config.stateDir, 'pg-password');
+  // Beside the cluster, where initdb (running as postgres) can read it; removed straight after.
+  const pwFile = path.join(path.dirname(dataDir), 'pg-password');
   writeFileSync(pwFile, config.secrets.pgPassword, { mode: 0o600 });
   chownToPostgres(pwFile);
   const [cmd, args] = asOwner(path.join(binDir, 'initdb'), [
