@@ -1,3 +1,4 @@
+import { popielSlenderB, popielSlenderC } from './convection';
 import {
   AIR_CONDUCTIVITY_W_PER_MK,
   AIR_KINEMATIC_VISCOSITY_M2_PER_S,
@@ -17,6 +18,10 @@ export interface AirProperties {
   verticalShape: number;
   /** Pr^(1/3) / [1 + (0.4/Pr)^(2/3)]^(1/4), the Prandtl factor of Churchill & Bernstein. */
   crossFlowFactor: number;
+  /** B of Popiel's slender vertical cylinder correction (convection.ts). */
+  slenderB: number;
+  /** C of Popiel's slender vertical cylinder correction (convection.ts). */
+  slenderC: number;
 }
 
 const LAST = AIR_PRANDTL.length - 1;
@@ -29,6 +34,8 @@ export const AIR_TABLE_MAX_K = AIR_TABLE_START_K + LAST * AIR_TABLE_STEP_K;
 const HORIZONTAL_SHAPE = AIR_PRANDTL.map((pr) => Math.pow(1 + Math.pow(0.559 / pr, 9 / 16), 8 / 27));
 const VERTICAL_SHAPE = AIR_PRANDTL.map((pr) => Math.pow(1 + Math.pow(0.492 / pr, 9 / 16), 8 / 27));
 const CROSS_FLOW = AIR_PRANDTL.map((pr) => Math.cbrt(pr) / Math.pow(1 + Math.pow(0.4 / pr, 2 / 3), 0.25));
+const SLENDER_B = AIR_PRANDTL.map((pr) => popielSlenderB(pr));
+const SLENDER_C = AIR_PRANDTL.map((pr) => popielSlenderC(pr));
 
 /**
  * Dry air at 1 atm at a film temperature, linear in the Incropera Table A.4 rows
@@ -52,5 +59,7 @@ export function airPropertiesAt(filmTemperatureK: number, out: AirProperties): A
   out.verticalShape =
     (VERTICAL_SHAPE[i] as number) + w * ((VERTICAL_SHAPE[i + 1] as number) - (VERTICAL_SHAPE[i] as number));
   out.crossFlowFactor = (CROSS_FLOW[i] as number) + w * ((CROSS_FLOW[i + 1] as number) - (CROSS_FLOW[i] as number));
+  out.slenderB = (SLENDER_B[i] as number) + w * ((SLENDER_B[i + 1] as number) - (SLENDER_B[i] as number));
+  out.slenderC = (SLENDER_C[i] as number) + w * ((SLENDER_C[i + 1] as number) - (SLENDER_C[i] as number));
   return out;
 }

@@ -52,3 +52,25 @@ export function rayleighNumber(
 export function combineMixedConvection(forcedWPerM2K: number, naturalWPerM2K: number): number {
   return Math.cbrt(forcedWPerM2K * forcedWPerM2K * forcedWPerM2K + naturalWPerM2K * naturalWPerM2K * naturalWPerM2K);
 }
+
+/**
+ * Popiel's correction of the vertical-plate Nusselt number for a slender vertical cylinder
+ * (C. O. Popiel, "Free convection heat transfer from vertical slender cylinders: a review",
+ * Heat Transfer Engineering 29 (2008) 521–536), as the ratio to the Churchill–Chu plate:
+ * Nu/Nu_plate = 1 + B·[32^½ · Gr_L^(−¼) · L/D]^C, with
+ * B = 0.0571322 + 0.20305 Pr^(−0.43) and C = 0.9165 − 0.0043 Pr^½ + 0.01333 ln Pr + 0.0004809/Pr
+ * — coefficients from memory; checked in __tests__/correlations.test.ts.
+ */
+export function popielSlenderFactor(grashof: number, lengthOverDiameter: number, prandtl: number): number {
+  return 1 + popielSlenderB(prandtl) * Math.pow((Math.sqrt(32) * lengthOverDiameter) / Math.sqrt(Math.sqrt(grashof)), popielSlenderC(prandtl));
+}
+
+/** B of {@link popielSlenderFactor}. */
+export function popielSlenderB(prandtl: number): number {
+  return 0.0571322 + 0.20305 * Math.pow(prandtl, -0.43);
+}
+
+/** C of {@link popielSlenderFactor}. */
+export function popielSlenderC(prandtl: number): number {
+  return 0.9165 - 0.0043 * Math.sqrt(prandtl) + 0.01333 * Math.log(prandtl) + 0.0004809 / prandtl;
+}

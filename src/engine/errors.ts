@@ -1,3 +1,6 @@
+import type { z } from 'zod';
+import type { RangeIssueParams } from './schema-helpers';
+
 /**
  * Codes for failures the input schema cannot catch. The HTTP layer maps a code to
  * a status (e.g. INVALID_INPUT → 400, UNKNOWN_PIPE_SIZE → 422); it never matches
@@ -18,6 +21,26 @@ export type EngineErrorCode =
 export interface EngineIssue {
   readonly path: readonly (string | number)[];
   readonly message: string;
+  /** For a range issue: the quantity, the limit crossed and both values in SI, so a client can re-word it. */
+  readonly params?: RangeIssueParams;
+}
+
+/** The issues of a failed parse, each with its path, sentence and (for ranges) params. */
+export function engineIssuesOf(error: z.ZodError): EngineIssue[] {
+  return error.issues.map((issue) => {
+    const params = issue.code === 'custom' ? (issue.params as RangeIssueParams | undefined) : undefined;
+    return {
+      path: issue.path.filter((p): p is string | number => typeof p !== 'symbol'),
+      message: issue.message,
+      ...(params && typeof params.limitSI === 'number' ? { params } : {}),
+    };
+  });
+}
+
+/** The INVALID_INPUT error for a failed parse. */
+export function invalidInput(error: z.ZodError): EngineError {
+  const issues = engineIssuesOf(error);
+  return new EngineError('INVALID_INPUT', issues.map((i) => i.message).join(' '), issues);
 }
 
 /** Typed error thrown by the engine; `code` is stable, `message` is readable. */

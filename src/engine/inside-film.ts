@@ -34,15 +34,29 @@ function gnielinskiNusselt(reynolds: number, prandtl: number): number {
 const LAMINAR_NUSSELT = 3.66;
 
 /**
- * Nusselt number for flow in a round tube: laminar below Re 2300, Gnielinski from
- * Re 10⁴, and in between the linear blend Gnielinski (2013, Int. J. Heat Mass
- * Transfer 63, 134) recommends, so the film is continuous in velocity.
+ * Mean laminar Nusselt number over a tube of length L with the thermal entry length, Hausen
+ * (1943) as given by Incropera eq. 8.57 (from memory): Nu = 3.66 + 0.0668 Gz / (1 + 0.04 Gz^(2/3)),
+ * Gz = (D/L)·Re·Pr. It tends to 3.66 in a long tube; checked in __tests__/correlations.test.ts.
  */
-export function tubeNusselt(reynolds: number, prandtl: number): number {
-  if (reynolds <= 2300) return LAMINAR_NUSSELT;
+export function laminarEntryNusselt(reynolds: number, prandtl: number, diameterOverLength: number): number {
+  const graetz = diameterOverLength * reynolds * prandtl;
+  return LAMINAR_NUSSELT + (0.0668 * graetz) / (1 + 0.04 * Math.pow(graetz, 2 / 3));
+}
+
+/**
+ * Nusselt number for flow in a round tube: laminar below Re 2300 (with the entry length of a
+ * run of length L, Hausen), Gnielinski from Re 10⁴, and in between the linear blend
+ * Gnielinski (2013, Int. J. Heat Mass Transfer 63, 134) recommends, so the film is
+ * continuous in velocity.
+ *
+ * @param diameterOverLength D/L of the run; 0 for a long (fully developed) tube
+ */
+export function tubeNusselt(reynolds: number, prandtl: number, diameterOverLength = 0): number {
+  const laminar = diameterOverLength > 0 ? laminarEntryNusselt(Math.min(reynolds, 2300), prandtl, diameterOverLength) : LAMINAR_NUSSELT;
+  if (reynolds <= 2300) return diameterOverLength > 0 ? laminarEntryNusselt(reynolds, prandtl, diameterOverLength) : LAMINAR_NUSSELT;
   if (reynolds >= 1e4) return gnielinskiNusselt(reynolds, prandtl);
   const blend = (reynolds - 2300) / (1e4 - 2300);
-  return (1 - blend) * LAMINAR_NUSSELT + blend * gnielinskiNusselt(1e4, prandtl);
+  return (1 - blend) * laminar + blend * gnielinskiNusselt(1e4, prandtl);
 }
 
 /** Inside film coefficient of a liquid flowing in the pipe, W/(m²·K). */
@@ -51,6 +65,7 @@ export function liquidFilmCoefficientWPerM2K(
   bulkTemperatureC: number,
   velocityMPerS: number,
   innerDiameterM: number,
+  runLengthM?: number,
 ): number {
   const table: LiquidTable = liquid === 'water' ? WATER : PROPYLENE_GLYCOL_30;
   const temperatureK = bulkTemperatureC + ZERO_CELSIUS_K;
@@ -59,5 +74,6 @@ export function liquidFilmCoefficientWPerM2K(
   const conductivity = interpolate(table.temperaturesK, table.conductivityWPerMK, temperatureK);
   const prandtl = interpolate(table.temperaturesK, table.prandtl, temperatureK);
   const reynolds = (density * velocityMPerS * innerDiameterM) / viscosity;
-  return (tubeNusselt(reynolds, prandtl) * conductivity) / innerDiameterM;
+  const diameterOverLength = runLengthM !== undefined && runLengthM > 0 ? innerDiameterM / runLengthM : 0;
+  return (tubeNusselt(reynolds, prandtl, diameterOverLength) * conductivity) / innerDiameterM;
 }

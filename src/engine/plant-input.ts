@@ -4,12 +4,31 @@ import { atmosphericPressureKPaAtAltitude } from './psychrometrics';
 import { SATURATION_MIN_ABSOLUTE_PRESSURE_KPA, STEAM_MAX_ABSOLUTE_PRESSURE_KPA, saturationTemperatureC } from './steam-properties';
 import { EMISSION_SOURCE_IDS, FUEL_IDS, FUEL_PRICE_UNITS } from './data/fuels';
 import { INSULATION_MATERIAL_IDS } from './data/insulation-materials';
-import { JACKET_IDS } from './data/surfaces';
+import { AREA_PRESET_IDS } from './data/areas';
+import { FITTING_TYPE_IDS } from './data/fittings';
+import { MARKET_IDS } from './data/markets';
+import { BARE_FINISH_IDS, JACKET_IDS } from './data/surfaces';
+import { HOURS_PER_YEAR } from './physical-constants';
 import { cataloguePipeSchema, explicitPipeSchema, fluidTemperatureSchema, MAX_INSULATION_THICKNESS_M } from './run-input';
 import { formatNumber, oneOf, quantity, text } from './schema-helpers';
 import { SERVICE_IDS, serviceDefaults } from './services';
 
 const confidence = (label: string) => oneOf(label, ['measured', 'estimated', 'guessed'] as const);
+
+/** Hours in a year: a common year's 8 760 h (a leap year's 8 784 h adds 0.3 %, well inside any estimate). */
+const operatingHours = (label: string) =>
+  quantity(label, 'h/yr', {
+    min: 0,
+    max: HOURS_PER_YEAR,
+    hint: 'A year has 8760 hours (a leap year 8784); running all year round is 8760.',
+  });
+
+const count = (label: string, max: number) =>
+  z
+    .number({ error: `${label} must be a whole number.` })
+    .int({ error: `${label} must be a whole number.` })
+    .min(0, { error: `${label} cannot be negative.` })
+    .max(max, { error: `At most ${max} ${label.toLowerCase()} per run.` });
 
 const thickness = (label: string) =>
   quantity(label, 'm', { min: 0, minExclusive: true, max: MAX_INSULATION_THICKNESS_M, maxExclusive: true });
@@ -54,14 +73,94 @@ export const currentStateSchema = z.discriminatedUnion(
   { error: 'Current state must be one of bare, damaged or insulated.' },
 );
 
+/** The kinds of action weighed for each run. */
+export const OPTION_KINDS = ['leave', 'repair', 'insulate', 'add-layer', 'replace'] as const;
+export type OptionKind = (typeof OPTION_KINDS)[number];
+
+/**
+ * A typed installed price for one run, overriding the price table (a consultant's quote).
+ * Give a price per metre of pipe (and per fitting cover), or a lump sum for the whole job.
+ */
+export const runPriceSchema = z
+  .object({
+    /** Installed price per metre of pipe insulated, in the plant's currency. */
+    perMetre: quantity('Installed price per metre', '', { min: 0, max: 1e6, kind: 'money' }).optional(),
+    /** Price of one removable fitting cover. */
+    coverEach: quantity('Price of one fitting cover', '', { min: 0, max: 1e6, kind: 'money' }).optional(),
+    /** The whole job on this run, in place of the per-metre figures. */
+    lumpSum: quantity('Installed price of the job', '', { min: 0, max: 1e8, kind: 'money' }).optional(),
+  })
+  .superRefine((price, ctx) => {
+    if (price.lumpSum !== undefined && (price.perMetre !== undefined || price.coverEach !== undefined)) {
+      ctx.addIssue({ code: 'custom', path: ['lumpSum'], message: 'Give either a lump sum or prices per metre and per cover, not both.' });
+    }
+  });
+
 /** The insulation proposed for a run; anything left out is chosen by the engine. */
 export const proposalSchema = z.object({
+  /**
+   * Force the action taken on the run (a consultant's choice); the engine still reports the
+   * other options beside it. Left out: the option with the least life-cycle cost that meets
+   * the safety needs.
+   */
+  option: oneOf('Chosen option', OPTION_KINDS).optional(),
   material: oneOf('Proposed insulation material', INSULATION_MATERIAL_IDS).optional(),
   /** Left out: the economic thickness, raised where personnel protection or condensation control need more. */
   thicknessM: thickness('Proposed insulation thickness').optional(),
   jacket: oneOf('Proposed jacket', JACKET_IDS).optional(),
   coverFittings: z.boolean({ error: 'Cover fittings must be true or false.' }).default(true),
+  /** A typed price for this run, overriding the price table. */
+  price: runPriceSchema.optional(),
 });
+
+/** One kind of fitting on a run, at the run's own pipe size. */
+export const fittingInputSchema = z.object({
+  type: oneOf('Fitting type', FITTING_TYPE_IDS),
+  count: count('Fittings', 500).refine((n) => n > 0, { error: 'Give at least one fitting of each kind listed.' }),
+  /** Already under a removable insulated cover today. */
+  covered: z.boolean({ error: 'Covered must be true or false.' }).default(false),
+});
+
+/**
+ * Site measurements of one run (a consultant's walk-round or an owner's thermometer). A
+ * measured bare surface temperature with the measured air gives the loss per metre directly;
+ * on an insulated run, measured ÷ modelled loss becomes the insulation's condition factor
+ * where the surface is more than 10 K from the air.
+ */
+export const measurementsSchema = z
+  .object({
+    /** Outer surface temperature read on the run, °C. */
+    surfaceTemperatureC: quantity('Measured surface temperature', '°C', { min: -60, max: 400 }).optional(),
+    /** How it was read: a contact probe, or an infrared thermometer (give the emittance it was set to). */
+    surfaceMethod: oneOf('Surface reading method', ['contact', 'infrared'] as const).default('contact'),
+    /** The emittance set on the infrared thermometer when reading; the reading is corrected to the surface's own. */
+    infraredEmittanceSetting: quantity('Infrared emittance setting', '', { min: 0.1, max: 1, kind: 'fraction' }).optional(),
+    /** Air beside the run at the time of the reading, °C. */
+    airTemperatureC: quantity('Measured air temperature', '°C', { min: -50, max: 60 }).optional(),
+    relativeHumidityPercent: quantity('Measured relative humidity', '%', { min: 1, max: 100 }).optional(),
+    airSpeedMPerS: quantity('Measured air speed', 'm/s', { min: 0, max: 40 }).optional(),
+    /** Length measured on site, m; replaces the run's length and counts as measured. */
+    lengthM: quantity('Measured length', 'm', { min: 0, minExclusive: true, max: 10000 }).optional(),
+    /** When the readings were taken (ISO 8601). */
+    takenAt: z.string().max(40).optional(),
+    note: z.string().max(500).optional(),
+  })
+  .superRefine((m, ctx) => {
+    if (m.surfaceTemperatureC !== undefined && m.airTemperatureC === undefined) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['airTemperatureC'],
+        message: 'A measured surface temperature needs the air temperature measured beside it at the same time.',
+      });
+    }
+    if (m.surfaceMethod === 'infrared' && m.surfaceTemperatureC !== undefined && m.infraredEmittanceSetting === undefined) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['infraredEmittanceSetting'],
+        message: 'Give the emittance the infrared thermometer was set to (often 0.95), so the reading can be corrected to the surface.',
+      });
+    }
+  });
 
 export const plantRunSchema = z
   .object({
@@ -74,27 +173,30 @@ export const plantRunSchema = z
     }),
     lengthM: quantity('Run length', 'm', { min: 0, minExclusive: true, max: 10000 }),
     lengthConfidence: confidence('Length confidence').default('estimated'),
-    operatingHoursPerYear: quantity('Operating hours', 'h/yr', { min: 0, max: 8784 }).optional(),
+    operatingHoursPerYear: operatingHours('Operating hours').optional(),
     steamGaugePressureKPa: quantity('Steam gauge pressure', 'kPa', { min: -101.325, max: 16000 }).optional(),
     fluidTemperatureC: fluidTemperatureSchema().optional(),
     velocityMPerS: quantity('Fluid velocity', 'm/s', { min: 0, max: 10 }).optional(),
+    /** Gauge pressure of a liquid line, kPa; only used to tell whether hot water could be boiling. */
+    liquidGaugePressureKPa: quantity('Line pressure', 'kPa', { min: -100, max: 5000 }).optional(),
+    /** What the bare pipe looks like (sets its emittance); by default the pipe material's usual finish. */
+    finish: oneOf('Bare pipe finish', BARE_FINISH_IDS).optional(),
+    /** The plant area the run sits in (see the plant's `areas`); without it, `ambient` and the plant's `conditions` apply. */
+    areaId: z.string().trim().min(1).max(64).optional(),
     ambient: ambientSchema.default({ kind: 'indoor-still' }),
     orientation: oneOf('Orientation', ['horizontal', 'vertical'] as const).default('horizontal'),
     runHeightM: quantity('Height of a vertical run', 'm', { min: 0, minExclusive: true, max: 200 }).optional(),
     current: currentStateSchema.default({ state: 'bare' }),
-    valves: z
-      .number({ error: 'Valves must be a whole number.' })
-      .int({ error: 'Valves must be a whole number.' })
-      .min(0, { error: 'Valves cannot be negative.' })
-      .max(500, { error: 'At most 500 valves per run.' })
-      .default(0),
-    flangePairs: z
-      .number({ error: 'Flange pairs must be a whole number.' })
-      .int({ error: 'Flange pairs must be a whole number.' })
-      .min(0, { error: 'Flange pairs cannot be negative.' })
-      .max(500, { error: 'At most 500 flange pairs per run.' })
-      .default(0),
+    /** Flanged valves (older form of `fittings`: counted as `valve-flanged`). */
+    valves: count('Valves', 500).default(0),
+    /** Flange pairs (older form of `fittings`: counted as `flange-pair`). */
+    flangePairs: count('Flange pairs', 500).default(0),
+    /** Whether the `valves` and `flangePairs` are already under covers. */
     fittingsInsulated: z.boolean({ error: 'Fittings insulated must be true or false.' }).default(false),
+    /** Fittings by type at the run's size, each with whether it is covered today. */
+    fittings: z.array(fittingInputSchema, { error: 'Fittings must be a list.' }).max(20).default([]),
+    /** Site readings that sharpen the estimate (see {@link measurementsSchema}). */
+    measurements: measurementsSchema.optional(),
     proposed: proposalSchema.prefault({}),
   })
   .superRefine((run, ctx) => {
@@ -114,6 +216,35 @@ export const plantRunSchema = z
       });
     }
   });
+
+/** The year's average air of an area (energy is figured on it). */
+export const areaAverageSchema = z.object({
+  airTemperatureC: quantity('Average air temperature', '°C', { min: -50, max: 60 }).optional(),
+  relativeHumidityPercent: quantity('Average relative humidity', '%', { min: 1, max: 100 }).optional(),
+  airSpeedMPerS: quantity('Average air speed', 'm/s', { min: 0, max: 40 }).optional(),
+});
+
+/** The design air of an area: the hot still hour (burns) and the wettest hour (sweating). */
+export const areaDesignSchema = z.object({
+  hotAirTemperatureC: quantity('Hottest air temperature', '°C', { min: -50, max: 60 }).optional(),
+  wetAirTemperatureC: quantity('Air temperature in the wettest hour', '°C', { min: -50, max: 60 }).optional(),
+  wetRelativeHumidityPercent: quantity('Relative humidity in the wettest hour', '%', { min: 1, max: 100 }).optional(),
+});
+
+/**
+ * One area of the plant with its own air: a preset (boiler room, washdown room, cold store,
+ * outdoors…) fills what is left out. Energy uses the averages; burn and sweat checks use the
+ * design air, never milder than the average.
+ */
+export const areaSchema = z.object({
+  id: text('Area id', 64),
+  label: text('Area name', 120),
+  preset: oneOf('Kind of area', AREA_PRESET_IDS).default('process-room'),
+  average: areaAverageSchema.prefault({}),
+  design: areaDesignSchema.prefault({}),
+  /** How well the air figures are known; typical values the user never changed count as guessed. */
+  confidence: confidence('Area conditions confidence').default('guessed'),
+});
 
 const priceTableSchema = z
   .object({
@@ -161,10 +292,20 @@ const priceTableSchema = z
 export const plantInputSchema = z
   .object({
     label: z.string().max(200).optional(),
-    /** Selects the stock thickness series (mm or inch) for the thickness searches. */
+    /**
+     * Display units of the form that sent it. Not used for any figure; kept so older requests
+     * parse. Without `market`, an older request's `US` still means the inch stock series.
+     * @deprecated send `market`
+     */
     unitSystem: oneOf('Unit system', ['SI', 'US'] as const).default('SI'),
-    operatingHoursPerYear: quantity('Operating hours', 'h/yr', { min: 0, max: 8784 }).default(6000),
-    operatingHoursConfidence: confidence('Operating hours confidence').default('estimated'),
+    /**
+     * The market the plant buys insulation in (from its country, see `marketForCountry`): it
+     * picks the stock thickness series (inch per ASTM C585, or mm). Display units never do.
+     */
+    market: oneOf('Market', MARKET_IDS).optional(),
+    operatingHoursPerYear: operatingHours('Operating hours').default(6000),
+    /** Pre-filled hours the user never changed count as guessed. */
+    operatingHoursConfidence: confidence('Operating hours confidence').default('guessed'),
     conditions: z
       .object({
         indoorAirTemperatureC: quantity('Indoor air temperature', '°C', { min: -20, max: 50 }).default(20),
@@ -174,8 +315,22 @@ export const plantInputSchema = z
         outdoorWindSpeedMPerS: quantity('Outdoor wind speed', 'm/s', { min: 0, max: 40 }).default(3),
         draughtyAirSpeedMPerS: quantity('Draught air speed', 'm/s', { min: 0, max: 10 }).default(1),
         altitudeM: quantity('Altitude', 'm', { min: -500, max: 5000 }).default(0),
+        /** Design air of the plant-wide rooms (used by runs without an area); never milder than the averages. */
+        design: z
+          .object({
+            indoorHotAirTemperatureC: quantity('Hottest indoor air temperature', '°C', { min: -20, max: 60 }).optional(),
+            outdoorHotAirTemperatureC: quantity('Hottest outdoor air temperature', '°C', { min: -50, max: 60 }).optional(),
+            indoorWetRelativeHumidityPercent: quantity('Indoor relative humidity in the wettest hour', '%', { min: 1, max: 100 }).optional(),
+            outdoorWetAirTemperatureC: quantity('Outdoor air temperature in the wettest hour', '°C', { min: -50, max: 60 }).optional(),
+            outdoorWetRelativeHumidityPercent: quantity('Outdoor relative humidity in the wettest hour', '%', { min: 1, max: 100 }).optional(),
+          })
+          .prefault({}),
+        /** How well these air figures are known; pre-filled values count as guessed. */
+        confidence: confidence('Conditions confidence').default('guessed'),
       })
       .prefault({}),
+    /** Areas of the plant with their own air; runs name theirs by `areaId`. */
+    areas: z.array(areaSchema, { error: 'Areas must be a list.' }).max(30, { error: 'At most 30 areas per plant.' }).default([]),
     energy: z
       .object({
         fuel: oneOf('Fuel', FUEL_IDS).default('natural-gas'),
@@ -184,7 +339,8 @@ export const plantInputSchema = z
         priceConfidence: confidence('Fuel price confidence').default('measured'),
         currency: z.string().trim().min(1).max(8).default('USD'),
         boilerEfficiency: quantity('Boiler efficiency', '', { min: 0.3, max: 1 }).optional(),
-        boilerEfficiencyConfidence: confidence('Boiler efficiency confidence').default('estimated'),
+        /** Left out: estimated when an efficiency is given, guessed when the fuel's default is used. */
+        boilerEfficiencyConfidence: confidence('Boiler efficiency confidence').optional(),
         emissionFactorSource: oneOf('Emission factor source', EMISSION_SOURCE_IDS).optional(),
         /** For the chillers that absorb heat gained by cold lines. */
         electricityPricePerKWh: quantity('Electricity price', 'per kWh', { min: 0, max: 100 }).optional(),
@@ -236,12 +392,26 @@ export const plantInputSchema = z
       });
     }
     const atmosphere = atmosphericPressureKPaAtAltitude(plant.conditions.altitudeM);
+    const areaIds = new Set<string>();
+    plant.areas.forEach((area, index) => {
+      if (areaIds.has(area.id)) {
+        ctx.addIssue({ code: 'custom', path: ['areas', index, 'id'], message: `Area id "${area.id}" is used twice; each area needs its own id.` });
+      }
+      areaIds.add(area.id);
+    });
     const ids = new Set<string>();
     plant.runs.forEach((run, index) => {
       if (ids.has(run.id)) {
         ctx.addIssue({ code: 'custom', path: ['runs', index, 'id'], message: `Run id "${run.id}" is used twice; each run needs its own id.` });
       }
       ids.add(run.id);
+      if (run.areaId !== undefined && !areaIds.has(run.areaId)) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['runs', index, 'areaId'],
+          message: `Run "${run.label}" sits in area "${run.areaId}", which the plant does not list; add the area or choose one of ${[...areaIds].join(', ') || 'none yet'}.`,
+        });
+      }
       const service = serviceDefaults(run.service);
       let lineC = run.fluidTemperatureC ?? service.typicalTemperatureC;
       if (service.kind === 'steam') {

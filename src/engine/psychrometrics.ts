@@ -17,6 +17,19 @@ function logSaturationRatio(temperatureC: number): number {
 }
 
 /**
+ * Saturation vapour pressure over water (over ice below 0 °C), kPa, by the same Magnus forms:
+ * e_s = 0.61094 exp(17.625 T / (243.04 + T)) over water, 0.61115 exp(22.587 T / (273.86 + T)) over ice.
+ */
+export function saturationVapourPressureKPa(temperatureC: number): number {
+  return 0.61094 * Math.exp(logSaturationRatio(temperatureC));
+}
+
+/** The vapour partial pressure of air at a temperature and relative humidity, kPa. */
+export function vapourPressureKPa(temperatureC: number, relativeHumidityPercent: number): number {
+  return (relativeHumidityPercent / 100) * saturationVapourPressureKPa(temperatureC);
+}
+
+/**
  * Dew point of moist air (frost point below 0 °C), by the Magnus form.
  *
  * @param temperatureC dry-bulb air temperature, −60 … 60 °C

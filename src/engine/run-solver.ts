@@ -5,6 +5,7 @@ import { EngineError } from './errors';
 import { ZERO_CELSIUS_K } from './physical-constants';
 import { radiationCoefficientWPerM2K } from './radiation';
 import { brentRoot } from './root-finding';
+import { condensationFluxKgPerM2S, latentHeatOfDepositionJPerKg } from './latent-gain';
 
 /** One insulation layer with everything the solver needs. */
 export interface ResolvedLayer {
@@ -30,6 +31,11 @@ export interface ResolvedRun {
   readonly fixedSurfaceCoefficientWPerM2K: number | null;
   /** Convection coefficient fixed by the caller (radiation still computed), or null. */
   readonly fixedConvectionCoefficientWPerM2K: number | null;
+  /**
+   * Water vapour in the air, for latent gain where the surface falls below the dew point:
+   * the air's vapour partial pressure, kPa, or null to leave latent heat out.
+   */
+  readonly airVapourPressureKPa?: number | null;
 }
 
 /** The solved state of one run, per metre. */
@@ -50,6 +56,8 @@ export interface CoreSolution {
   readonly totalResistanceMKPerW: number;
   readonly surfaceDiameterM: number;
   readonly rayleighNumber: number;
+  /** Latent heat brought in by vapour condensing (or frosting) on the surface, W/m; 0 when dry. */
+  readonly latentGainWPerM: number;
   readonly iterations: number;
 }
 
@@ -70,6 +78,8 @@ interface SolverState {
   nLayers: number;
   layerCoefficients: Float64Array;
   innerResistance: number;
+  wallResistance: number;
+  filmResistance: number;
   fluidC: number;
   ambientC: number;
   surroundingsC: number;
@@ -82,11 +92,14 @@ interface SolverState {
   naturalLengthM: number;
   fixedCombined: number | null;
   fixedConvection: number | null;
+  vapourKPa: number;
+  slenderFactor: number;
   air: AirProperties;
   lastConvection: number;
   lastRadiation: number;
   lastHeat: number;
   lastRayleigh: number;
+  lastLatent: number;
 }
 
 const state: SolverState = {
@@ -94,6 +107,8 @@ const state: SolverState = {
   nLayers: 0,
   layerCoefficients: new Float64Array(MAX_LAYERS),
   innerResistance: 0,
+  wallResistance: 0,
+  filmResistance: 0,
   fluidC: 0,
   ambientC: 0,
   surroundingsC: 0,
@@ -106,11 +121,14 @@ const state: SolverState = {
   naturalLengthM: 0,
   fixedCombined: null,
   fixedConvection: null,
-  air: { kinematicViscosityM2PerS: 0, conductivityWPerMK: 0, prandtl: 0, horizontalShape: 1, verticalShape: 1, crossFlowFactor: 1 },
+  vapourKPa: -1,
+  slenderFactor: 0,
+  air: { kinematicViscosityM2PerS: 0, conductivityWPerMK: 0, prandtl: 0, horizontalShape: 1, verticalShape: 1, crossFlowFactor: 1, slenderB: 0, slenderC: 1 },
   lastConvection: 0,
   lastRadiation: 0,
   lastHeat: 0,
   lastRayleigh: 0,
+  lastLatent: 0,
 };
 
 function convectionAt(surfaceC: number): number {
@@ -124,7 +142,11 @@ function convectionAt(surfaceC: number): number {
   // Churchill & Chu (1975): horizontal cylinder on D, or vertical plate on the run height.
   const root =
     (st.vertical ? 0.825 : 0.6) + (0.387 * Math.sqrt(Math.cbrt(ra))) / (st.vertical ? air.verticalShape : air.horizontalShape);
-  const natural = (root * root * air.conductivityWPerMK) / st.naturalLengthM;
+  let naturalNusselt = root * root;
+  // A thin vertical run sheds more than a flat plate of its height: Popiel's (2008) slender-
+  // cylinder correction of the Churchill–Chu plate value on Gr_L = Ra_L / Pr (see convection.ts).
+  if (st.vertical && ra > 0) naturalNusselt *= 1 + air.slenderB * Math.pow(st.slenderFactor / Math.sqrt(Math.sqrt(ra / air.prandtl)), air.slenderC);
+  const natural = (naturalNusselt * air.conductivityWPerMK) / st.naturalLengthM;
   // Churchill & Bernstein (1977) in cross-flow; 0.3 alone in still air.
   const reynolds = (st.run.windSpeedMPerS * st.surfaceDiameterM) / nu;
   const forcedNusselt =
@@ -144,7 +166,14 @@ function heatAt(surfaceC: number): number {
   }
   st.lastConvection = convectionAt(surfaceC);
   st.lastRadiation = radiationCoefficientWPerM2K(st.run.surfaceEmittance, surfaceC + ZERO_CELSIUS_K, st.surroundingsK);
-  return st.perimeter * (st.lastConvection * (surfaceC - st.ambientC) + st.lastRadiation * (surfaceC - st.surroundingsC));
+  const sensible = st.perimeter * (st.lastConvection * (surfaceC - st.ambientC) + st.lastRadiation * (surfaceC - st.surroundingsC));
+  st.lastLatent = 0;
+  if (st.vapourKPa > 0) {
+    // Vapour condensing on a surface below the dew point gives up its latent heat to the line.
+    const flux = condensationFluxKgPerM2S(st.lastConvection, st.air, surfaceC, st.ambientC, st.vapourKPa);
+    if (flux > 0) st.lastLatent = st.perimeter * flux * latentHeatOfDepositionJPerKg(surfaceC);
+  }
+  return sensible - st.lastLatent;
 }
 
 /** Fluid temperature implied by a trial surface temperature, minus the real one. */
@@ -160,19 +189,7 @@ function impliedFluidMinusActual(surfaceC: number): number {
   return t + q * st.innerResistance - st.fluidC;
 }
 
-/**
- * Solves the surface heat balance of one run (method.md): per metre, the heat
- * through the inside film, the wall and each layer (k̄ over the layer's own span)
- * equals the heat leaving the surface by convection and radiation. The unknown is
- * the surface temperature; marching inward from a trial surface temperature with
- * the surface's q′ gives the fluid temperature that trial implies, and Brent's
- * method drives that to the real fluid temperature. The implied fluid temperature
- * rises strictly with the trial surface temperature, and the bracket
- * [min, max] of fluid, air and surroundings temperatures always holds the root.
- *
- * @param guessSurfaceC optional warm start (e.g. the previous thickness of a series)
- */
-export function solveResolvedRun(run: ResolvedRun, guessSurfaceC?: number): CoreSolution {
+function findSurface(run: ResolvedRun, guessSurfaceC: number | undefined): { surfaceC: number; iterations: number } {
   const st = state;
   const nLayers = run.layers.length;
   if (nLayers > MAX_LAYERS) {
@@ -188,11 +205,12 @@ export function solveResolvedRun(run: ResolvedRun, guessSurfaceC?: number): Core
   }
   const surfaceDiameterM = outer;
   const filmResistance = 1 / (run.insideFilmWPerM2K * Math.PI * run.pipeInnerDiameterM);
-  const wallResistance =
+  st.wallResistance =
     run.pipeOuterDiameterM > run.pipeInnerDiameterM
       ? Math.log(run.pipeOuterDiameterM / run.pipeInnerDiameterM) / (TWO_PI * run.pipeConductivityWPerMK)
       : 0;
-  st.innerResistance = filmResistance + wallResistance;
+  st.innerResistance = filmResistance + st.wallResistance;
+  st.filmResistance = filmResistance;
   const fluidC = run.fluidTemperatureC;
   const ambientC = run.ambientTemperatureC;
   const surroundingsC = run.surroundingsTemperatureC;
@@ -210,7 +228,12 @@ export function solveResolvedRun(run: ResolvedRun, guessSurfaceC?: number): Core
   st.naturalLengthM = st.vertical ? run.runHeightM : surfaceDiameterM;
   st.fixedCombined = run.fixedSurfaceCoefficientWPerM2K;
   st.fixedConvection = run.fixedConvectionCoefficientWPerM2K;
+  st.vapourKPa =
+    run.fixedSurfaceCoefficientWPerM2K === null && run.fixedConvectionCoefficientWPerM2K === null ? (run.airVapourPressureKPa ?? -1) : -1;
+  // Popiel's slender-cylinder parameter: 32^½ · L/D (the Ra^¼ divides it per trial).
+  st.slenderFactor = Math.sqrt(32) * (run.runHeightM / surfaceDiameterM);
   st.lastRayleigh = 0;
+  st.lastLatent = 0;
 
   let surfaceC: number;
   let iterations: number;
@@ -292,7 +315,51 @@ export function solveResolvedRun(run: ResolvedRun, guessSurfaceC?: number): Core
     iterations = result.iterations;
     impliedFluidMinusActual(surfaceC);
   }
+  return { surfaceC, iterations };
+}
 
+/** The heat flow and surface temperature of a lean solve (reused; copy what you keep). */
+export interface LeanSolution {
+  heatLossWPerM: number;
+  surfaceTemperatureC: number;
+  latentGainWPerM: number;
+}
+
+const lean: LeanSolution = { heatLossWPerM: 0, surfaceTemperatureC: 0, latentGainWPerM: 0 };
+
+/**
+ * The surface balance alone — heat flow and surface temperature, nothing else — for the
+ * many solves of a thickness series, where the full result of every trial is not needed.
+ * Returns one reused record: read it before the next solve.
+ */
+export function solveLean(run: ResolvedRun, guessSurfaceC?: number): LeanSolution {
+  const { surfaceC } = findSurface(run, guessSurfaceC);
+  lean.heatLossWPerM = state.lastHeat;
+  lean.surfaceTemperatureC = surfaceC;
+  lean.latentGainWPerM = state.lastLatent;
+  return lean;
+}
+
+/**
+ * Solves the surface heat balance of one run (method.md): per metre, the heat
+ * through the inside film, the wall and each layer (k̄ over the layer's own span)
+ * equals the heat leaving the surface by convection and radiation. The unknown is
+ * the surface temperature; marching inward from a trial surface temperature with
+ * the surface's q′ gives the fluid temperature that trial implies, and Brent's
+ * method drives that to the real fluid temperature. The implied fluid temperature
+ * rises strictly with the trial surface temperature, and the bracket
+ * [min, max] of fluid, air and surroundings temperatures always holds the root.
+ *
+ * @param guessSurfaceC optional warm start (e.g. the previous thickness of a series)
+ */
+export function solveResolvedRun(run: ResolvedRun, guessSurfaceC?: number): CoreSolution {
+  const { surfaceC, iterations } = findSurface(run, guessSurfaceC);
+  const st = state;
+  const nLayers = st.nLayers;
+  const fluidC = st.fluidC;
+  const surfaceDiameterM = st.surfaceDiameterM;
+  const wallResistance = st.wallResistance;
+  const filmResistance = st.filmResistance;
   // Read the state back at the root: the same q′ through every resistance.
   const q = st.lastHeat;
   const hc = st.lastConvection;
@@ -317,7 +384,12 @@ export function solveResolvedRun(run: ResolvedRun, guessSurfaceC?: number): Core
   const innerWallC = pipeOuterC + q * wallResistance;
   const meanK: number[] = new Array<number>(nLayers);
   const layerResistances: number[] = new Array<number>(nLayers);
-  let total = st.innerResistance + 1 / ((hc + hr) * st.perimeter);
+  // The surface resistance is the air-side temperature difference over the heat flow, so the
+  // resistances add up to fluid − air even when the surroundings radiate from another
+  // temperature or vapour condenses on the surface.
+  const surfaceResistance =
+    Math.abs(q) > 1e-12 && Math.abs(surfaceC - st.ambientC) > 1e-9 ? (surfaceC - st.ambientC) / q : 1 / ((hc + hr) * st.perimeter);
+  let total = st.innerResistance + surfaceResistance;
   for (let j = 0; j < nLayers; j++) {
     const layer = run.layers[j] as ResolvedLayer;
     diameters[j + 2] = (diameters[j + 1] as number) + 2 * layer.thicknessM;
@@ -340,10 +412,11 @@ export function solveResolvedRun(run: ResolvedRun, guessSurfaceC?: number): Core
     insideFilmResistanceMKPerW: filmResistance,
     wallResistanceMKPerW: wallResistance,
     layerResistancesMKPerW: layerResistances,
-    surfaceResistanceMKPerW: 1 / ((hc + hr) * st.perimeter),
+    surfaceResistanceMKPerW: surfaceResistance,
     totalResistanceMKPerW: total,
     surfaceDiameterM,
     rayleighNumber: rayleigh,
+    latentGainWPerM: st.lastLatent,
     iterations,
   };
 }

@@ -20,6 +20,54 @@ function withUnit(value: string, unit: string): string {
   return unit === '' ? value : `${value} ${unit}`;
 }
 
+/**
+ * What kind of quantity a number field holds, so a client can re-word a range message in
+ * its own units (°F, psig, ft, %) with the field's own label.
+ */
+export type QuantityKind =
+  | 'temperature'
+  | 'temperatureDifference'
+  | 'pressure'
+  | 'length'
+  | 'speed'
+  | 'fraction'
+  | 'percent'
+  | 'hours'
+  | 'years'
+  | 'count'
+  | 'money'
+  | 'conductivity'
+  | 'coefficient'
+  | 'number';
+
+/**
+ * Machine-readable facts of a range issue, beside its sentence: which limit was crossed,
+ * the limit and the given value in SI (the unit named by `unitSI`), and whether the limit
+ * itself is allowed.
+ */
+export interface RangeIssueParams {
+  readonly quantity: QuantityKind;
+  readonly limit: 'min' | 'max';
+  readonly limitSI: number;
+  readonly givenSI: number;
+  /** The limit itself is refused (e.g. a thickness must be more than 0). */
+  readonly exclusive: boolean;
+  readonly unitSI: string;
+}
+
+const KIND_BY_UNIT: Readonly<Record<string, QuantityKind>> = {
+  '°C': 'temperature',
+  K: 'temperatureDifference',
+  kPa: 'pressure',
+  m: 'length',
+  'm/s': 'speed',
+  '%': 'percent',
+  'h/yr': 'hours',
+  years: 'years',
+  'W/(m·K)': 'conductivity',
+  'W/(m²·K)': 'coefficient',
+};
+
 export interface QuantityOptions {
   readonly min?: number;
   readonly max?: number;
@@ -29,42 +77,45 @@ export interface QuantityOptions {
   readonly maxExclusive?: boolean;
   /** Extra advice appended to a range message. */
   readonly hint?: string;
+  /** The kind of quantity; by default read from the unit ('°C' → temperature, '' → number). */
+  readonly kind?: QuantityKind;
 }
 
 /**
  * A finite number with range messages a plant owner can act on, e.g.
- * "Insulation thickness must be under 0.5 m; 3 m was given."
+ * "Insulation thickness must be under 0.5 m; 3 m was given.", each range issue carrying
+ * {@link RangeIssueParams} in its `params`.
  */
 export function quantity(label: string, unit: string, options: QuantityOptions = {}) {
   const hint = options.hint ? ` ${options.hint}` : '';
-  let schema = z.number({
-    error: (issue) =>
-      issue.input === undefined
-        ? `${label} is required.`
-        : `${label} must be a number${unit ? ` in ${unit}` : ''}; ${describeInput(issue.input)} was given.`,
-  });
+  const kind = options.kind ?? KIND_BY_UNIT[unit] ?? 'number';
   const { min, max } = options;
-  if (min !== undefined) {
-    const bound = withUnit(formatNumber(min), unit);
-    schema = options.minExclusive
-      ? schema.gt(min, {
-          error: (issue) => `${label} must be more than ${bound}; ${withUnit(describeInput(issue.input), unit)} was given.${hint}`,
-        })
-      : schema.gte(min, {
-          error: (issue) => `${label} must be at least ${bound}; ${withUnit(describeInput(issue.input), unit)} was given.${hint}`,
+  return z
+    .number({
+      error: (issue) =>
+        issue.input === undefined
+          ? `${label} is required.`
+          : `${label} must be a number${unit ? ` in ${unit}` : ''}; ${describeInput(issue.input)} was given.`,
+    })
+    .superRefine((value, ctx) => {
+      if (!Number.isFinite(value)) return;
+      const given = withUnit(describeInput(value), unit);
+      if (min !== undefined && (options.minExclusive ? value <= min : value < min)) {
+        const bound = withUnit(formatNumber(min), unit);
+        ctx.addIssue({
+          code: 'custom',
+          message: `${label} must be ${options.minExclusive ? 'more than' : 'at least'} ${bound}; ${given} was given.${hint}`,
+          params: { quantity: kind, limit: 'min', limitSI: min, givenSI: value, exclusive: Boolean(options.minExclusive), unitSI: unit } satisfies RangeIssueParams,
         });
-  }
-  if (max !== undefined) {
-    const bound = withUnit(formatNumber(max), unit);
-    schema = options.maxExclusive
-      ? schema.lt(max, {
-          error: (issue) => `${label} must be under ${bound}; ${withUnit(describeInput(issue.input), unit)} was given.${hint}`,
-        })
-      : schema.lte(max, {
-          error: (issue) => `${label} must be at most ${bound}; ${withUnit(describeInput(issue.input), unit)} was given.${hint}`,
+      } else if (max !== undefined && (options.maxExclusive ? value >= max : value > max)) {
+        const bound = withUnit(formatNumber(max), unit);
+        ctx.addIssue({
+          code: 'custom',
+          message: `${label} must be ${options.maxExclusive ? 'under' : 'at most'} ${bound}; ${given} was given.${hint}`,
+          params: { quantity: kind, limit: 'max', limitSI: max, givenSI: value, exclusive: Boolean(options.maxExclusive), unitSI: unit } satisfies RangeIssueParams,
         });
-  }
-  return schema;
+      }
+    });
 }
 
 /** A string naming one of `ids`, with a message that lists them. */

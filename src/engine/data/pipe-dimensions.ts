@@ -8,13 +8,25 @@
  *   1.0.22 B36.10M/B36.19M tables (see __tests__/pipe-dimensions.test.ts).
  * - ASTM B88-20 seamless copper water tube, Types K and L: OD = nominal + 1/8 in;
  *   walls from the standard's Table 1 as reproduced in trade size charts.
+ * - ASTM A270 sanitary stainless tube (3-A sizes): outside diameter equals the nominal size
+ *   in inches; walls 0.065 in (16 gauge) up to 3 in, 0.083 in (14 gauge) at 4 in, 0.109 in
+ *   (12 gauge) at 6 in — the usual dairy and brewery tube, from memory.
+ * - DIN 11850 series 2 hygienic stainless tube (metric food plants): outside diameter ×
+ *   wall, from memory.
  * - EN 10220:2002 seamless and welded steel tubes, series 1 outside diameters
  *   (mm); the walls offered are the standard's preferred wall series within a
  *   range usual for each size (range from memory), the default is a common
  *   process-pipe wall (common practice).
  */
 
-export type PipeStandardId = 'ASME-B36.10M' | 'ASME-B36.19M' | 'ASTM-B88-L' | 'ASTM-B88-K' | 'EN-10220';
+export type PipeStandardId =
+  | 'ASME-B36.10M'
+  | 'ASME-B36.19M'
+  | 'ASTM-B88-L'
+  | 'ASTM-B88-K'
+  | 'EN-10220'
+  | 'ASTM-A270-SANITARY'
+  | 'DIN-11850-2';
 
 export interface PipeSizeEntry {
   /** Size as written in the trade: "1-1/2" (NPS or copper nominal) or "DN50". */
@@ -152,12 +164,73 @@ function enSizes(): PipeSizeEntry[] {
   });
 }
 
+// Sanitary OD tube: nominal inch (= OD), DN equivalent (common practice), default wall key, walls (in).
+const A270_ROWS: readonly (readonly [string, number, number, string, Readonly<Record<string, number>>])[] = [
+  ['1/2', 0.5, 10, '16GA', { '16GA': 0.065 }],
+  ['3/4', 0.75, 15, '16GA', { '16GA': 0.065 }],
+  ['1', 1, 25, '16GA', { '16GA': 0.065 }],
+  ['1-1/2', 1.5, 40, '16GA', { '16GA': 0.065 }],
+  ['2', 2, 50, '16GA', { '16GA': 0.065 }],
+  ['2-1/2', 2.5, 65, '16GA', { '16GA': 0.065 }],
+  ['3', 3, 80, '16GA', { '16GA': 0.065 }],
+  ['4', 4, 100, '14GA', { '14GA': 0.083, '16GA': 0.065 }],
+  ['6', 6, 150, '12GA', { '12GA': 0.109 }],
+];
+
+function sanitarySizes(): PipeSizeEntry[] {
+  return A270_ROWS.map(([size, nominalInch, dn, defaultSchedule, walls]) => ({
+    size,
+    nominalInch,
+    dn,
+    outerDiameterM: nominalInch * IN,
+    wallsM: Object.fromEntries(Object.entries(walls).map(([k, w]) => [k, w * IN])),
+    defaultSchedule,
+  }));
+}
+
+// DIN 11850 series 2: DN, OD mm, wall mm.
+const DIN11850_ROWS: readonly (readonly [number, number, number])[] = [
+  [10, 13, 1.5],
+  [15, 19, 1.5],
+  [20, 23, 1.5],
+  [25, 29, 1.5],
+  [32, 35, 1.5],
+  [40, 41, 1.5],
+  [50, 53, 1.5],
+  [65, 70, 2],
+  [80, 85, 2],
+  [100, 104, 2],
+  [125, 129, 2],
+  [150, 154, 2],
+];
+
+function din11850Sizes(): PipeSizeEntry[] {
+  return DIN11850_ROWS.map(([dn, odMm, wallMm]) => ({
+    size: `DN${dn}`,
+    nominalInch: dn / 25,
+    dn,
+    outerDiameterM: odMm / 1000,
+    wallsM: { [wallMm.toFixed(1)]: wallMm / 1000 },
+    defaultSchedule: wallMm.toFixed(1),
+  }));
+}
+
 export const PIPE_STANDARDS: readonly PipeStandard[] = [
   { id: 'ASME-B36.10M', name: 'ASME B36.10M welded and seamless steel pipe', defaultMaterial: 'carbon-steel', sizes: npsSizes(B3610_WALLS_IN, '40') },
   { id: 'ASME-B36.19M', name: 'ASME B36.19M stainless steel pipe', defaultMaterial: 'stainless-steel', sizes: npsSizes(B3619_WALLS_IN, '10S') },
   { id: 'ASTM-B88-L', name: 'ASTM B88 copper water tube, Type L', defaultMaterial: 'copper', sizes: copperSizes('L') },
   { id: 'ASTM-B88-K', name: 'ASTM B88 copper water tube, Type K', defaultMaterial: 'copper', sizes: copperSizes('K') },
   { id: 'EN-10220', name: 'EN 10220 steel tube (metric)', defaultMaterial: 'carbon-steel', sizes: enSizes() },
+  { id: 'ASTM-A270-SANITARY', name: 'ASTM A270 sanitary stainless tube (OD sizes)', defaultMaterial: 'stainless-steel', sizes: sanitarySizes() },
+  { id: 'DIN-11850-2', name: 'DIN 11850 hygienic stainless tube, series 2 (metric)', defaultMaterial: 'stainless-steel', sizes: din11850Sizes() },
 ];
 
-export const PIPE_STANDARD_IDS = ['ASME-B36.10M', 'ASME-B36.19M', 'ASTM-B88-L', 'ASTM-B88-K', 'EN-10220'] as const satisfies readonly PipeStandardId[];
+export const PIPE_STANDARD_IDS = [
+  'ASME-B36.10M',
+  'ASME-B36.19M',
+  'ASTM-B88-L',
+  'ASTM-B88-K',
+  'EN-10220',
+  'ASTM-A270-SANITARY',
+  'DIN-11850-2',
+] as const satisfies readonly PipeStandardId[];
