@@ -1,11 +1,42 @@
 /**
- * Engine benchmark (`npm run bench`): median µs per solveRun for a bare and a
- * two-layer insulated run, and ms per estimatePlant for a 200-run plant with the
- * economic-thickness search and the low/likely/high range. Prints figures only;
- * no test depends on timing. The plant is an invented one (a creamery in the
- * made-up town of Wrenfold).
+ * Engine benchmark (`npm run bench`): bundles the engine the way the server gets it (esbuild,
+ * one ESM file) and times that bundle beside a baseline bundled the same way in the same run —
+ * the engine as it stood at BENCH_BASELINE (a git ref, default e05611b: the engine before the
+ * issue-9 judgement work), taken with `git archive` into a temp folder. Prints per figure the
+ * new value, the baseline and their ratio, plus allocation and GC time per 200-run plant.
+ * No test depends on timing. The plant is an invented one (a creamery in the made-up town of
+ * Wrenfold), in the request shape both engines accept.
  */
-import { estimatePlant, solveRun, type PlantInput, type RunInput } from '../src/engine/index';
+import { execFileSync } from 'node:child_process';
+import { mkdirSync, rmSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { PerformanceObserver } from 'node:perf_hooks';
+import { pathToFileURL } from 'node:url';
+import { build } from 'esbuild';
+
+const root = resolve(import.meta.dirname, '..');
+const baselineRef = process.env.BENCH_BASELINE ?? 'e05611b';
+const work = join(root, 'node_modules', '.cache', 'lagwise-bench');
+rmSync(work, { recursive: true, force: true });
+mkdirSync(join(work, 'baseline'), { recursive: true });
+execFileSync('sh', ['-c', `git -C "${root}" archive ${baselineRef} src/engine | tar -x -C "${join(work, 'baseline')}"`]);
+
+async function bundle(entry: string, out: string): Promise<string> {
+  await build({ entryPoints: [entry], bundle: true, format: 'esm', platform: 'node', target: 'node20', outfile: out, external: ['zod'], logLevel: 'error' });
+  return out;
+}
+
+type Engine = {
+  solveRun: (input: unknown) => { heatLossWPerM: number };
+  estimatePlant: (input: unknown, options?: unknown) => { runs: readonly unknown[]; totals: { installedCost: number } };
+};
+
+const newPath = await bundle(join(root, 'src/engine/index.ts'), join(work, 'new.mjs'));
+const basePath = await bundle(join(work, 'baseline/src/engine/index.ts'), join(work, 'base.mjs'));
+const engines: Record<'new' | 'baseline', Engine> = {
+  new: (await import(pathToFileURL(newPath).href)) as Engine,
+  baseline: (await import(pathToFileURL(basePath).href)) as Engine,
+};
 
 function median(values: number[]): number {
   const sorted = [...values].sort((a, b) => a - b);
@@ -13,59 +44,46 @@ function median(values: number[]): number {
   return sorted.length % 2 ? (sorted[mid] as number) : ((sorted[mid - 1] as number) + (sorted[mid] as number)) / 2;
 }
 
+const SIZES4 = ['1', '2', '4', '6'];
+const bare = (i: number) => ({ pipe: { standard: 'ASME-B36.10M', size: SIZES4[i % 4], schedule: '40', material: 'carbon-steel' }, steam: { gaugePressureKPa: 500 + i * 5 }, ambientTemperatureC: 20 });
+const twoLayer = (i: number) => ({ ...bare(i), surface: 'aluminium-jacket', insulation: [{ thicknessM: 0.04, material: 'calcium-silicate' }, { thicknessM: 0.03, material: 'mineral-wool' }] });
+
 /** Median over batches of the per-call time, µs; varies the input slightly so nothing is cached. */
-function microsecondsPerCall(make: (i: number) => RunInput, batches = 25, perBatch = 4000): number {
+function microsecondsPerCall(engine: Engine, make: (i: number) => unknown, batches = 25, perBatch = 4000): number {
   const inputs = Array.from({ length: 64 }, (_, i) => make(i));
   let sink = 0;
-  for (let i = 0; i < 20000; i++) sink += solveRun(inputs[i % 64] as RunInput).heatLossWPerM;
+  for (let i = 0; i < 20000; i++) sink += engine.solveRun(inputs[i % 64]).heatLossWPerM;
   const times: number[] = [];
   for (let b = 0; b < batches; b++) {
     const start = performance.now();
-    for (let i = 0; i < perBatch; i++) sink += solveRun(inputs[i % 64] as RunInput).heatLossWPerM;
+    for (let i = 0; i < perBatch; i++) sink += engine.solveRun(inputs[i % 64]).heatLossWPerM;
     times.push(((performance.now() - start) * 1000) / perBatch);
   }
   if (!Number.isFinite(sink)) throw new Error('non-finite result in bench');
   return median(times);
 }
 
-const bare = (i: number): RunInput => ({
-  pipe: { standard: 'ASME-B36.10M', size: ['1', '2', '4', '6'][i % 4] as string, schedule: '40', material: 'carbon-steel' },
-  steam: { gaugePressureKPa: 500 + i * 5 },
-  ambientTemperatureC: 20,
-});
-
-const twoLayer = (i: number): RunInput => ({
-  pipe: { standard: 'ASME-B36.10M', size: ['1', '2', '4', '6'][i % 4] as string, schedule: '40', material: 'carbon-steel' },
-  steam: { gaugePressureKPa: 500 + i * 5 },
-  ambientTemperatureC: 20,
-  surface: 'aluminium-jacket',
-  insulation: [
-    { thicknessM: 0.04, material: 'calcium-silicate' },
-    { thicknessM: 0.03, material: 'mineral-wool' },
-  ],
-});
-
 const SERVICES = ['steam', 'condensate-return', 'hot-water', 'cip-supply', 'cip-return', 'chilled-water', 'glycol'] as const;
 const SIZES = ['1/2', '3/4', '1', '1-1/2', '2', '3', '4', '6'];
-
-function plant(): PlantInput {
+function plant() {
   return {
     label: 'Wrenfold Creamery (invented)',
     operatingHoursPerYear: 5200,
     energy: { fuel: 'natural-gas', price: 1.1, priceUnit: 'therm', electricityPricePerKWh: 0.14 },
     runs: Array.from({ length: 200 }, (_, i) => {
       const service = SERVICES[i % SERVICES.length] as (typeof SERVICES)[number];
-      const state = i % 3 === 0 ? { state: 'bare' as const } : i % 3 === 1 ? { state: 'damaged' as const, bareFraction: 0.3 } : { state: 'insulated' as const, material: service === 'chilled-water' || service === 'glycol' ? 'flexible-elastomeric' as const : 'mineral-wool' as const, thicknessM: 0.025 };
+      const cold = service === 'chilled-water' || service === 'glycol';
+      const current = i % 3 === 0 ? { state: 'bare' } : i % 3 === 1 ? { state: 'damaged', bareFraction: 0.3 } : { state: 'insulated', material: cold ? 'flexible-elastomeric' : 'mineral-wool', thicknessM: 0.025 };
       return {
         id: `run-${i}`,
         label: `Run ${i}`,
         service,
-        pipe: { standard: 'ASME-B36.10M', size: SIZES[i % SIZES.length] as string, schedule: '40' },
+        pipe: { standard: 'ASME-B36.10M', size: SIZES[i % SIZES.length], schedule: '40' },
         lengthM: 5 + (i % 17) * 3,
-        lengthConfidence: i % 4 === 0 ? ('guessed' as const) : ('estimated' as const),
+        lengthConfidence: i % 4 === 0 ? 'guessed' : 'estimated',
         ...(service === 'steam' ? { steamGaugePressureKPa: 300 + (i % 5) * 150 } : {}),
-        ambient: i % 5 === 0 ? { kind: 'outdoor' as const } : i % 5 === 1 ? { kind: 'indoor-draughty' as const } : { kind: 'indoor-still' as const },
-        current: state,
+        ambient: i % 5 === 0 ? { kind: 'outdoor' } : i % 5 === 1 ? { kind: 'indoor-draughty' } : { kind: 'indoor-still' },
+        current,
         valves: i % 3,
         flangePairs: i % 4,
       };
@@ -73,20 +91,55 @@ function plant(): PlantInput {
   };
 }
 
-const bareUs = microsecondsPerCall(bare);
-const twoLayerUs = microsecondsPerCall(twoLayer);
+const gcDurations: number[] = [];
+const observer = new PerformanceObserver((list) => {
+  for (const entry of list.getEntries()) gcDurations.push(entry.duration);
+});
+observer.observe({ entryTypes: ['gc'] });
+const gc = (globalThis as { gc?: () => void }).gc;
 
-const plantInput = plant();
-for (let i = 0; i < 5; i++) estimatePlant(plantInput);
-const plantTimes: number[] = [];
-let solves = 0;
-for (let i = 0; i < 15; i++) {
+function plantFigures(engine: Engine, options?: unknown): { ms: number; gcShare: number; allocatedMB: number | null } {
+  const input = plant();
+  for (let i = 0; i < 5; i++) engine.estimatePlant(input, options);
+  const times: number[] = [];
+  gcDurations.length = 0;
   const start = performance.now();
-  const result = estimatePlant(plantInput);
-  plantTimes.push(performance.now() - start);
-  solves = result.runs.reduce((n, r) => n + r.thicknessSeries.length + (r.current.state === 'bare' ? 1 : 2), 0);
+  for (let i = 0; i < 21; i++) {
+    const t0 = performance.now();
+    engine.estimatePlant(input, options);
+    times.push(performance.now() - t0);
+  }
+  const total = performance.now() - start;
+  const gcShare = gcDurations.reduce((a, b) => a + b, 0) / total;
+  let allocatedMB: number | null = null;
+  if (gc) {
+    const samples: number[] = [];
+    for (let i = 0; i < 5; i++) {
+      gc();
+      const before = process.memoryUsage().heapUsed;
+      engine.estimatePlant(input, options);
+      samples.push((process.memoryUsage().heapUsed - before) / 1e6);
+    }
+    allocatedMB = median(samples);
+  }
+  return { ms: median(times), gcShare, allocatedMB };
 }
 
-console.log(`solveRun, bare steam run:            ${bareUs.toFixed(2)} µs (median)`);
-console.log(`solveRun, two-layer insulated run:   ${twoLayerUs.toFixed(2)} µs (median)`);
-console.log(`estimatePlant, 200 runs (${solves} solves, thickness search, ${plantInput.range?.samples ?? 400} range samples): ${median(plantTimes).toFixed(1)} ms (median of ${plantTimes.length})`);
+const ratio = (a: number, b: number) => `${(a / b).toFixed(2)}×`;
+const bareNew = microsecondsPerCall(engines.new, bare);
+const bareBase = microsecondsPerCall(engines.baseline, bare);
+const twoNew = microsecondsPerCall(engines.new, twoLayer);
+const twoBase = microsecondsPerCall(engines.baseline, twoLayer);
+const plantNew = plantFigures(engines.new, { detail: 'full' });
+const plantNewSummary = plantFigures(engines.new, { detail: 'summary' });
+const plantBase = plantFigures(engines.baseline);
+observer.disconnect();
+
+const mb = (x: number | null) => (x === null ? 'n/a (run with --expose-gc)' : `${x.toFixed(1)} MB`);
+console.log(`bundled engine (esbuild) vs baseline ${baselineRef}, same run, node ${process.version}`);
+console.log(`solveRun, bare steam run:           ${bareNew.toFixed(2)} µs   baseline ${bareBase.toFixed(2)} µs   ratio ${ratio(bareNew, bareBase)}   (target ≤ 5 µs)`);
+console.log(`solveRun, two-layer insulated run:  ${twoNew.toFixed(2)} µs   baseline ${twoBase.toFixed(2)} µs   ratio ${ratio(twoNew, twoBase)}`);
+console.log(`estimatePlant, 200 runs, options + range + thickness searches, full detail: ${plantNew.ms.toFixed(1)} ms   baseline ${plantBase.ms.toFixed(1)} ms   ratio ${ratio(plantNew.ms, plantBase.ms)}   (target ≤ 20 ms)`);
+console.log(`estimatePlant, 200 runs, summary detail (what /api/estimate answers): ${plantNewSummary.ms.toFixed(1)} ms   ratio to baseline ${ratio(plantNewSummary.ms, plantBase.ms)}`);
+console.log(`allocated per 200-run plant: ${mb(plantNew.allocatedMB)} full, ${mb(plantNewSummary.allocatedMB)} summary   baseline ${mb(plantBase.allocatedMB)}`);
+console.log(`GC share of plant time: ${(plantNew.gcShare * 100).toFixed(1)} % full, ${(plantNewSummary.gcShare * 100).toFixed(1)} % summary   baseline ${(plantBase.gcShare * 100).toFixed(1)} %`);

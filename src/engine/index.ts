@@ -8,7 +8,7 @@
  */
 
 export { ENGINE_VERSION } from './version';
-export { EngineError, isEngineError, type EngineErrorCode, type EngineIssue } from './errors';
+export { EngineError, isEngineError, engineIssuesOf, type EngineErrorCode, type EngineIssue } from './errors';
 
 // One run.
 export { solveRun, type RunResult, type RunWarning, type RunWarningCode, type RunResistances } from './run';
@@ -34,8 +34,15 @@ export {
 export {
   estimatePlant,
   estimateParsedPlant,
+  marketOf,
+  type EstimateOptions,
   type PlantResult,
   type RunEstimate,
+  type RunOption,
+  type ChoiceReason,
+  type InputNotice,
+  type MeasurementUse,
+  type ResultDetail,
   type AnnualFigures,
   type Range,
   type ThicknessOption,
@@ -43,7 +50,23 @@ export {
   type FaceProfile,
   type CashFlowYear,
 } from './plant';
-export { plantInputSchema, type PlantInput, type ParsedPlantInput, type PlantRunInput } from './plant-input';
+export {
+  plantInputSchema,
+  areaSchema,
+  measurementsSchema,
+  fittingInputSchema,
+  runPriceSchema,
+  OPTION_KINDS,
+  type OptionKind,
+  type PlantInput,
+  type ParsedPlantInput,
+  type PlantRunInput,
+} from './plant-input';
+export { AREA_PRESETS, AREA_PRESET_IDS, DEFAULT_DESIGN, type AreaPreset, type AreaPresetId } from './data/areas';
+export { MARKETS, MARKET_IDS, marketForCountry, type Market, type MarketId } from './data/markets';
+export { c585ActualThicknessM, c585OuterDiameterM } from './data/c585';
+export { infraredCorrectedC } from './measurements';
+export { type QuantityKind, type RangeIssueParams } from './schema-helpers';
 export { SERVICE_DEFAULTS, SERVICE_IDS, serviceDefaults, type ServiceDefaults, type ServiceId } from './services';
 export { CONFIDENCE_SPREADS, type Confidence } from './uncertainty';
 
@@ -58,7 +81,10 @@ export {
   STEAM_MAX_ABSOLUTE_PRESSURE_KPA,
   type SteamState,
 } from './steam-properties';
-export { dewPointC, atmosphericPressureKPaAtAltitude } from './psychrometrics';
+export { dewPointC, atmosphericPressureKPaAtAltitude, saturationVapourPressureKPa, vapourPressureKPa } from './psychrometrics';
+export { condensationFluxKgPerM2S, latentHeatOfDepositionJPerKg, vapourDiffusivityM2PerS } from './latent-gain';
+export { popielSlenderFactor } from './convection';
+export { laminarEntryNusselt, tubeNusselt } from './inside-film';
 export { criticalInsulationRadiusM } from './radiation';
 export { equivalentThicknessM } from './geometry';
 
@@ -85,7 +111,7 @@ export {
   type InsulationMaterial,
   type InsulationMaterialId,
 } from './data/insulation-materials';
-export { SURFACES, SURFACE_IDS, JACKET_IDS, type SurfaceId } from './data/surfaces';
+export { SURFACES, SURFACE_IDS, JACKET_IDS, BARE_FINISH_IDS, type SurfaceId, type BareFinishId, type SurfaceLook } from './data/surfaces';
 export {
   FUELS,
   FUEL_IDS,
@@ -97,7 +123,7 @@ export {
   type EmissionFactor,
   type EmissionSourceId,
 } from './data/fuels';
-export { FITTING_EQUIVALENTS, VALVE_EQUIVALENT_LENGTH_M, FLANGE_PAIR_EQUIVALENT_LENGTH_M } from './data/fittings';
+export { FITTING_TYPES, FITTING_TYPE_IDS, fittingAreaM2, fittingEquivalentLengthM, type FittingTypeId } from './data/fittings';
 export { DEMO_INSTALLED_COST_TABLE, type InstalledCostTable } from './data/installed-cost-demo';
 export { lookupPipe, type PipeDimensions } from './catalogue';
 export { conductivityAt, meanConductivity, type ConductivityCurve } from './conductivity';

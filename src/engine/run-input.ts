@@ -163,6 +163,8 @@ export const runInputSchema = z
     windSpeedMPerS: quantity('Wind speed', 'm/s', { min: 0, max: 40 }).default(0),
     orientation: oneOf('Orientation', ['horizontal', 'vertical'] as const).default('horizontal'),
     runHeightM: quantity('Height of a vertical run', 'm', { min: 0, minExclusive: true, max: 200 }).default(3),
+    /** Length of the run, m; sets the entry length of a laminar inside film (left out: a long run). */
+    runLengthM: quantity('Run length', 'm', { min: 0, minExclusive: true, max: 10000 }).optional(),
     relativeHumidityPercent: quantity('Relative humidity', '%', { min: 0, minExclusive: true, max: 100 }).optional(),
     surfaceEmittance: quantity('Surface emittance', '', { min: 0.02, max: 1 }).optional(),
     surface: oneOf('Surface', SURFACE_IDS).optional(),

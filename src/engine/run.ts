@@ -1,9 +1,9 @@
 import { findInsulationMaterial, findPipeMaterial, findPipeStandard, findSurface, lookupPipe } from './catalogue';
 import { constantConductivity } from './conductivity';
 import type { InsulationMaterial } from './data/insulation-materials';
-import { EngineError } from './errors';
+import { EngineError, invalidInput } from './errors';
 import { CONDENSING_STEAM_FILM_W_PER_M2K, liquidFilmCoefficientWPerM2K } from './inside-film';
-import { dewPointC } from './psychrometrics';
+import { dewPointC, vapourPressureKPa } from './psychrometrics';
 import { runInputSchema, type ParsedRunInput, type RunInput } from './run-input';
 import { solveResolvedRun, type CoreSolution, type ResolvedLayer, type ResolvedRun } from './run-solver';
 import { formatNumber } from './schema-helpers';
@@ -17,7 +17,9 @@ export type RunWarningCode =
   | 'SURFACE_ABOVE_TOUCH_LIMIT'
   | 'SURFACE_BELOW_DEW_POINT'
   | 'INSULATION_BELOW_CRITICAL_RADIUS'
-  | 'RAYLEIGH_BEYOND_CORRELATION';
+  | 'RAYLEIGH_BEYOND_CORRELATION'
+  | 'BARE_FITTINGS_ABOVE_TOUCH_LIMIT'
+  | 'BARE_FITTINGS_BELOW_DEW_POINT';
 
 /** A caution: a stable code for programs and a sentence for people. */
 export interface RunWarning {
@@ -49,6 +51,8 @@ export interface RunResult {
   readonly radiationCoefficientWPerM2K: number;
   readonly surfaceCoefficientWPerM2K: number;
   readonly insideFilmWPerM2K: number;
+  /** Latent heat of vapour condensing (or frosting) on a surface below the dew point, W/m. */
+  readonly latentGainWPerM: number;
   readonly resistances: RunResistances;
   /** Overall coefficient on the inner pipe area, W/(m²·K). */
   readonly uInnerWPerM2K: number;
@@ -117,6 +121,7 @@ export function prepareRun(run: ParsedRunInput): PreparedRun {
           fluidC,
           run.fluid?.velocityMPerS ?? 1,
           innerDiameterM,
+          run.runLengthM,
         ));
 
   const layerMaterials: (InsulationMaterial | null)[] = [];
@@ -150,6 +155,8 @@ export function prepareRun(run: ParsedRunInput): PreparedRun {
     surfaceEmittance: emittance,
     fixedSurfaceCoefficientWPerM2K: run.surfaceCoefficientWPerM2K ?? null,
     fixedConvectionCoefficientWPerM2K: run.convectionCoefficientWPerM2K ?? null,
+    airVapourPressureKPa:
+      run.relativeHumidityPercent !== undefined ? vapourPressureKPa(run.ambientTemperatureC, run.relativeHumidityPercent) : null,
   };
   const dew =
     run.relativeHumidityPercent !== undefined ? dewPointC(run.ambientTemperatureC, run.relativeHumidityPercent) : null;
@@ -231,6 +238,7 @@ export function solvePreparedRun(prepared: PreparedRun, guessSurfaceC?: number):
     radiationCoefficientWPerM2K: s.radiationCoefficientWPerM2K,
     surfaceCoefficientWPerM2K: s.convectionCoefficientWPerM2K + s.radiationCoefficientWPerM2K,
     insideFilmWPerM2K: run.insideFilmWPerM2K,
+    latentGainWPerM: s.latentGainWPerM,
     resistances: {
       insideFilmMKPerW: s.insideFilmResistanceMKPerW,
       pipeWallMKPerW: s.wallResistanceMKPerW,
@@ -272,12 +280,6 @@ export function solvePreparedRun(prepared: PreparedRun, guessSurfaceC?: number):
  */
 export function solveRun(input: RunInput): RunResult {
   const parsed = runInputSchema.safeParse(input);
-  if (!parsed.success) {
-    const issues = parsed.error.issues.map((issue) => ({
-      path: issue.path.filter((p): p is string | number => typeof p !== 'symbol'),
-      message: issue.message,
-    }));
-    throw new EngineError('INVALID_INPUT', issues.map((i) => i.message).join(' '), issues);
-  }
+  if (!parsed.success) throw invalidInput(parsed.error);
   return solvePreparedRun(prepareRun(parsed.data));
 }

@@ -131,8 +131,9 @@ function isSubmitResponse(body: unknown): body is SubmitAssessmentResponse {
 
 /** The estimate of a plant; nothing is stored. Pass a signal to abort a stale request. */
 export function requestEstimate(input: PlantInput, signal?: AbortSignal): Promise<ApiResult<EstimateResponse>> {
+  // The results step draws face profiles and thickness series, so it asks for the full answer.
   return send(
-    '/api/estimate',
+    '/api/estimate?detail=full',
     {
       method: 'POST',
       headers: { 'content-type': 'application/json', accept: 'application/json' },

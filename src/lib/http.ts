@@ -5,13 +5,18 @@
  */
 import type { APIContext, APIRoute } from 'astro';
 import { z } from 'zod';
-import { isEngineError } from '../engine';
+import { isEngineError, type RangeIssueParams } from '../engine';
 import { describeForLog, isDatabaseUnavailable } from '../db/errors';
 import { DomainError, type DomainErrorCode } from './errors';
 
 export interface Issue {
   path: string;
   message: string;
+  /**
+   * For a range issue: the kind of quantity, the limit crossed and both values in SI, so a
+   * client can say it again in its own units with the field's own label.
+   */
+  params?: RangeIssueParams;
 }
 
 export interface ErrorBody {
@@ -45,10 +50,14 @@ export function errorResponse(status: number, code: string, message: string, iss
 
 /** zod issues as `{ path: "runs.2.lengthM", message }`, the shape every 400 carries. */
 export function issuesOf(error: z.ZodError): Issue[] {
-  return error.issues.map((issue) => ({
-    path: issue.path.map(String).join('.') || '(body)',
-    message: issue.message,
-  }));
+  return error.issues.map((issue) => {
+    const params = issue.code === 'custom' ? (issue.params as RangeIssueParams | undefined) : undefined;
+    return {
+      path: issue.path.map(String).join('.') || '(body)',
+      message: issue.message,
+      ...(params && typeof params.limitSI === 'number' ? { params } : {}),
+    };
+  });
 }
 
 export function validationFailed(issues: Issue[]): Response {
@@ -102,7 +111,7 @@ export function responseForError(error: unknown, context: { method: string; path
   }
   if (isEngineError(error)) {
     const issues = error.issues.length
-      ? error.issues.map((i) => ({ path: i.path.map(String).join('.') || '(body)', message: i.message }))
+      ? error.issues.map((i) => ({ path: i.path.map(String).join('.') || '(body)', message: i.message, ...(i.params ? { params: i.params } : {}) }))
       : undefined;
     return errorResponse(error.code === 'INVALID_INPUT' ? 400 : 422, error.code, error.message, issues);
   }

@@ -27,6 +27,20 @@ const errorSchema = {
             properties: {
               path: { type: 'string', description: 'Dotted path of the field, e.g. runs.2.lengthM', examples: ['runs.0.lengthM'] },
               message: { type: 'string' },
+              params: {
+                type: 'object',
+                description:
+                  'Present on range issues, so a client can say it again in its own units with its own label: the kind of quantity, which limit was crossed, the limit and the given value in SI (unitSI), and whether the limit itself is refused.',
+                required: ['quantity', 'limit', 'limitSI', 'givenSI', 'exclusive', 'unitSI'],
+                properties: {
+                  quantity: { type: 'string', enum: ['temperature', 'temperatureDifference', 'pressure', 'length', 'speed', 'fraction', 'percent', 'hours', 'years', 'count', 'money', 'conductivity', 'coefficient', 'number'] },
+                  limit: { type: 'string', enum: ['min', 'max'] },
+                  limitSI: { type: 'number' },
+                  givenSI: { type: 'number' },
+                  exclusive: { type: 'boolean' },
+                  unitSI: { type: 'string', examples: ['°C', 'kPa', 'm', 'h/yr'] },
+                },
+              },
             },
           },
         },
@@ -80,6 +94,15 @@ export function openApiDocument() {
       '/api/estimate': {
         post: {
           summary: 'Estimate a plant (nothing is stored)',
+          parameters: [
+            {
+              name: 'detail',
+              in: 'query',
+              required: false,
+              description: '`summary` (default): the figures the result screens show. `full`: also each run’s thickness series and face profiles.',
+              schema: { type: 'string', enum: ['summary', 'full'], default: 'summary' },
+            },
+          ],
           requestBody: { required: true, content: { 'application/json': { schema: { $ref: '#/components/schemas/PlantInput' } } } },
           responses: {
             '200': {
@@ -89,7 +112,14 @@ export function openApiDocument() {
                   schema: {
                     type: 'object',
                     required: ['engineVersion', 'result'],
-                    properties: { engineVersion: { type: 'string' }, result: { type: 'object', description: 'PlantResult: per-run and total figures, ranges, assumptions, warnings.' } },
+                    properties: {
+                      engineVersion: { type: 'string' },
+                      result: {
+                        type: 'object',
+                        description:
+                          'PlantResult: per run the options weighed (leave, repair, insulate, add-layer, replace) with the chosen one and why, hazards at design air, notices; totals over the recommended actions; ranges; assumptions; warnings.',
+                      },
+                    },
                   },
                 },
               },

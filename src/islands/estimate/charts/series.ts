@@ -65,7 +65,8 @@ export function lossByRun(result: PlantResult, system: UnitSystem): ChartSpec {
 export function temperatureProfile(run: RunEstimate, system: UnitSystem, touchLimitC: number): ChartSpec {
   const unit = displayUnit('temperature', system);
   const air = run.air.temperatureC;
-  const proposedFaces = run.proposed.profile.faceTemperaturesC;
+  // The island asks for the full answer (POST /api/estimate?detail=full), which carries the profiles.
+  const proposedFaces = run.proposed.profile?.faceTemperaturesC ?? [];
   const layerFaces = proposedFaces.length - 2;
   const labels = [
     'In the pipe',
@@ -74,7 +75,7 @@ export function temperatureProfile(run: RunEstimate, system: UnitSystem, touchLi
     ...Array.from({ length: layerFaces }, (_, i) => (layerFaces === 1 ? 'Insulation, outer face' : `Layer ${i + 1}, outer face`)),
     'Surrounding air',
   ];
-  const nowFaces = [...run.current.profile.faceTemperaturesC];
+  const nowFaces = [...(run.current.profile?.faceTemperaturesC ?? [])];
   while (nowFaces.length < proposedFaces.length) nowFaces.push(nowFaces[nowFaces.length - 1] ?? run.fluidTemperatureC);
   const limit = run.cold
     ? { label: `Dew point of the air (${formatQuantity(run.air.dewPointC, 'temperature', system)})`, valueC: run.air.dewPointC, tone: 'frost' as const }
@@ -106,16 +107,17 @@ export function temperatureProfile(run: RunEstimate, system: UnitSystem, touchLi
 export function lifeCycleByThickness(run: RunEstimate, system: UnitSystem, currency: string, horizonYears: number): ChartSpec {
   const thickness = displayUnit('thickness', system);
   const economic = run.economicThickness?.thicknessM;
+  const thicknessSeries = run.thicknessSeries ?? [];
   return {
     kind: 'line',
     name: `Line chart: cost over ${horizonYears} years against insulation thickness for ${run.label}, with the economic thickness marked.`,
-    labels: run.thicknessSeries.map((option) => `${formatFigure(thickness.fromBase(option.thicknessM), { significant: 3, maxDecimals: system === 'US' ? 3 : 0 })} ${thickness.symbol}`),
+    labels: thicknessSeries.map((option) => `${formatFigure(thickness.fromBase(option.thicknessM), { significant: 3, maxDecimals: system === 'US' ? 3 : 0 })} ${thickness.symbol}`),
     series: [
-      { label: `Life-cycle cost (installed + ${horizonYears} years of heat)`, values: run.thicknessSeries.map((o) => o.lifeCycleCost), tone: 'graphite' },
-      { label: 'Installed cost alone', values: run.thicknessSeries.map((o) => o.installedCost), tone: 'graphite-soft', dashed: true },
+      { label: `Life-cycle cost (installed + ${horizonYears} years of heat)`, values: thicknessSeries.map((o) => o.lifeCycleCost), tone: 'graphite' },
+      { label: 'Installed cost alone', values: thicknessSeries.map((o) => o.installedCost), tone: 'graphite-soft', dashed: true },
       {
         label: 'Economic thickness',
-        values: run.thicknessSeries.map((o) => (economic !== undefined && Math.abs(o.thicknessM - economic) < 1e-9 ? o.lifeCycleCost : null)),
+        values: thicknessSeries.map((o) => (economic !== undefined && Math.abs(o.thicknessM - economic) < 1e-9 ? o.lifeCycleCost : null)),
         tone: 'mineral',
         pointsOnly: true,
       },
