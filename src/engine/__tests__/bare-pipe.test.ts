@@ -71,7 +71,7 @@ const doeRows: DoeRow[] = (
 // convection law without Churchill–Chu's turbulent rise at large Ra·D³ (a Ra^¼
 // law at ε = 0.8 gives a flat +9…14 % instead), or of a lower emittance
 // (at ε = 0.7 every row is inside ±15 %, below). The value is also one the
-// references recall from memory. Kept visible as an expected failure; not widened.
+// references recall from memory. Kept visible as data with its measured deviation; not widened.
 const KNOWN_MISS = new Set(['T1-DOE2-NPS12-15psig']);
 
 describe('bare steam lines against US DOE Steam Tip Sheet #2 (ε = 0.8, Churchill–Chu)', () => {
@@ -79,8 +79,10 @@ describe('bare steam lines against US DOE Steam Tip Sheet #2 (ε = 0.8, Churchil
     expectWithin(solveRun(doeCase(row.input.odM, row.input.gaugeKPa, OXIDISED_STEEL)).heatLossWPerM, row);
   });
 
-  it.fails.each(doeRows.filter((r) => KNOWN_MISS.has(r.name)))('$name (known miss: +15.7 %, see comment)', (row) => {
-    expectWithin(solveRun(doeCase(row.input.odM, row.input.gaugeKPa, OXIDISED_STEEL)).heatLossWPerM, row);
+  it.each(doeRows.filter((r) => KNOWN_MISS.has(r.name)))('$name misses by its recorded +15.7 % (see comment)', (row) => {
+    const measured = deviation(solveRun(doeCase(row.input.odM, row.input.gaugeKPa, OXIDISED_STEEL)).heatLossWPerM, row);
+    expect(measured).toBeGreaterThan(0.15);
+    expect(measured).toBeCloseTo(0.1575, 3);
   });
 
   it('the model lies above the table for every row, by 2–16 %, more for larger pipe', () => {
@@ -231,6 +233,7 @@ describe('the solver’s inlined correlations equal their published forms', () =
   it('Churchill & Chu and Churchill & Bernstein, with Prandtl factors tabulated per air-table row, agree within 0.1 %', async () => {
     const { churchillChuHorizontalNusselt, churchillChuVerticalNusselt, churchillBernsteinNusselt, combineMixedConvection, rayleighNumber } = await import('../convection');
     const { airPropertiesAt } = await import('../air-properties');
+    const { popielSlenderFactor } = await import('../convection');
     for (const [surfaceC, wind, vertical] of [[165, 0, false], [90, 3, false], [60, 0, true], [250, 8, true]] as const) {
       const result = solveRun({
         pipe: { outerDiameterM: 0.1, wallThicknessM: 0, conductivityWPerMK: 50 },
@@ -244,10 +247,11 @@ describe('the solver’s inlined correlations equal their published forms', () =
       });
       const ts = result.surfaceTemperatureC;
       const filmK = (ts + 20) / 2 + 273.15;
-      const air = airPropertiesAt(filmK, { kinematicViscosityM2PerS: 0, conductivityWPerMK: 0, prandtl: 0, horizontalShape: 0, verticalShape: 0, crossFlowFactor: 0 });
+      const air = airPropertiesAt(filmK, { kinematicViscosityM2PerS: 0, conductivityWPerMK: 0, prandtl: 0, horizontalShape: 0, verticalShape: 0, crossFlowFactor: 0, slenderB: 0, slenderC: 0 });
       const length = vertical ? 2 : 0.1;
       const ra = rayleighNumber(ts - 20, length, filmK, air.kinematicViscosityM2PerS, air.prandtl);
-      const natural = ((vertical ? churchillChuVerticalNusselt(ra, air.prandtl) : churchillChuHorizontalNusselt(ra, air.prandtl)) * air.conductivityWPerMK) / length;
+      const slender = vertical ? popielSlenderFactor(ra / air.prandtl, 2 / 0.1, air.prandtl) : 1;
+      const natural = ((vertical ? churchillChuVerticalNusselt(ra, air.prandtl) * slender : churchillChuHorizontalNusselt(ra, air.prandtl)) * air.conductivityWPerMK) / length;
       const forced = (churchillBernsteinNusselt((wind * 0.1) / air.kinematicViscosityM2PerS, air.prandtl) * air.conductivityWPerMK) / 0.1;
       expect(Math.abs(result.convectionCoefficientWPerM2K / combineMixedConvection(forced, natural) - 1)).toBeLessThan(0.001);
     }

@@ -113,7 +113,7 @@ describe('plant estimate', () => {
 
   it('the economic thickness is the least life-cycle cost of the series, and the proposal meets every safety need', () => {
     for (const r of result.runs) {
-      const least = Math.min(...r.thicknessSeries.map((o) => o.lifeCycleCost));
+      const least = Math.min(...r.thicknessSeries!.map((o) => o.lifeCycleCost));
       expect(r.economicThickness?.lifeCycleCost).toBe(least);
       if (r.personnelProtection.leastThicknessM !== null) expect(r.proposed.thicknessM).toBeGreaterThanOrEqual(r.personnelProtection.leastThicknessM);
       if (r.condensationControl.leastThicknessM !== null) expect(r.proposed.thicknessM).toBeGreaterThanOrEqual(r.condensationControl.leastThicknessM);
@@ -204,16 +204,16 @@ describe('the face profile and the cash flow of a plant estimate', () => {
 
   it('runs from the inner wall to the surface, one face more for each insulation layer', () => {
     for (const run of result.runs) {
-      expect(run.current.profile.faceTemperaturesC).toHaveLength(2);
-      expect(run.proposed.profile.faceTemperaturesC).toHaveLength(3);
-      expect(run.proposed.profile.faceDiametersM).toHaveLength(3);
-      expect(run.proposed.profile.faceTemperaturesC.at(-1)).toBeCloseTo(run.proposed.surfaceTemperatureC, 9);
-      expect(run.current.profile.faceTemperaturesC.at(-1)).toBeCloseTo(run.current.surfaceTemperatureC, 9);
-      const d = run.proposed.profile.faceDiametersM;
+      expect(run.current.profile!.faceTemperaturesC).toHaveLength(2);
+      expect(run.proposed.profile!.faceTemperaturesC).toHaveLength(3);
+      expect(run.proposed.profile!.faceDiametersM).toHaveLength(3);
+      expect(run.proposed.profile!.faceTemperaturesC.at(-1)).toBeCloseTo(run.proposed.surfaceTemperatureC, 9);
+      expect(run.current.profile!.faceTemperaturesC.at(-1)).toBeCloseTo(run.current.surfaceTemperatureC, 9);
+      const d = run.proposed.profile!.faceDiametersM;
       expect(d[0]! < d[1]! && d[1]! < d[2]!).toBe(true);
       expect(d[1]).toBeCloseTo(run.pipeOuterDiameterM, 12);
       // Temperature falls outward on a hot line and rises outward on a cold one.
-      const t = [run.fluidTemperatureC, ...run.proposed.profile.faceTemperaturesC, run.air.temperatureC];
+      const t = [run.fluidTemperatureC, ...run.proposed.profile!.faceTemperaturesC, run.air.temperatureC];
       for (let i = 1; i < t.length; i++) expect(run.cold ? t[i]! >= t[i - 1]! : t[i]! <= t[i - 1]!).toBe(true);
     }
   });

@@ -18,8 +18,10 @@ const rows = [
 // the 19.41 °C dew point (0.07 K below even at the C585 actual 1.56 in), because its
 // still-air coefficient at a 1.8 K surface difference is low (h_c 2.1 + h_r 5.2
 // W/(m²·K)); a handbook table typically assumes a fixed surface coefficient, which
-// the row does not state. Kept as an expected miss; the other rows hold.
+// the row does not state. Kept as data: the engine picks 2 in, its 1.5-in surface
+// sitting 0.129 K under the dew point (measured); the other rows hold.
 const KNOWN_MISS = 'T10-FPSH52-REQ-NPS4-RH90';
+const KNOWN_MISS_SHORTFALL_K = 0.129;
 
 function check(row: (typeof rows)[number]): void {
     const result = condensationControlThickness(
@@ -43,7 +45,22 @@ function check(row: (typeof rows)[number]): void {
 
 describe('condensation control against Frankel Table 5.2', () => {
   it.each(rows.filter((r) => r.name !== KNOWN_MISS))('$name', (row) => check(row));
-  it.fails.each(rows.filter((r) => r.name === KNOWN_MISS))('$name (known miss, see comment)', (row) => check(row));
+  it.each(rows.filter((r) => r.name === KNOWN_MISS))('$name misses by its recorded shortfall at 1.5 in (see comment)', (row) => {
+    const result = condensationControlThickness(
+      {
+        pipe: { outerDiameterM: row.odM, wallThicknessM: 0, conductivityWPerMK: 50 },
+        fluidTemperatureC: 1.11111,
+        insideFilmWPerM2K: 1e7,
+        ambientTemperatureC: 21.1111,
+        relativeHumidityPercent: row.rh,
+        surfaceEmittance: 0.9,
+      },
+      { layer: { conductivityWPerMK: 0.036057 }, candidateThicknessesM: [0.0127, 0.0254, 0.0381, 0.0508], marginK: 0 },
+    );
+    expect(result.thicknessM).toBe(0.0508);
+    const atTable = result.candidates.find((c) => c.thicknessM === row.expected);
+    expect(result.limitC - (atTable?.surfaceTemperatureC as number)).toBeCloseTo(KNOWN_MISS_SHORTFALL_K, 3);
+  });
 });
 
 describe('safety limits', () => {
