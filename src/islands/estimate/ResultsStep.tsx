@@ -28,6 +28,13 @@ const serviceName = (id: string) => SERVICE_DEFAULTS.find((s) => s.id === id)?.n
 const materialName = (id: string) => INSULATION_MATERIALS.find((m) => m.id === id)?.name ?? id;
 const surfaceName = (id: string) => SURFACES.find((s) => s.id === id)?.name ?? id;
 const STATE_NAMES = { bare: 'Bare', damaged: 'Damaged', insulated: 'Insulated' } as const;
+const OPTION_WORDS = {
+  leave: 'Leave as it is',
+  repair: 'Repair the bare parts',
+  insulate: 'Insulate',
+  'add-layer': 'Add a layer',
+  replace: 'Replace the insulation',
+} as const;
 
 /** A hazard as a short flag (always with words, never colour alone) and a full sentence in the person's units. */
 function hazardsOf(run: RunEstimate, system: UnitSystem): { code: string; flag: string; tone: 'heat' | 'cold' | 'plain'; sentence: string }[] {
@@ -39,15 +46,19 @@ function hazardsOf(run: RunEstimate, system: UnitSystem): { code: string; flag: 
           code: hazard.code,
           flag: 'Burns on touch',
           tone: 'heat',
-          sentence: `The surface runs at about ${t(run.current.surfaceTemperatureC)}, above the ${t(run.personnelProtection.touchLimitC)} touch limit: it can burn on contact.`,
+          sentence: `On the hottest still day the surface reaches about ${t(run.current.designSurfaceTemperatureC)}, above the ${t(run.personnelProtection.touchLimitC)} touch limit: it can burn on contact.`,
         };
       case 'SURFACE_BELOW_DEW_POINT':
         return {
           code: hazard.code,
           flag: 'Sweats: below the dew point',
           tone: 'cold',
-          sentence: `The surface runs at about ${t(run.current.surfaceTemperatureC)}, below the air’s dew point of ${t(run.air.dewPointC)}: it will sweat or frost unless insulated with a sealed vapour retarder.`,
+          sentence: `In the wettest hour the surface sits at about ${t(run.current.designSurfaceTemperatureC)}, below the air’s dew point of ${t(run.condensationControl.dewPointC)}: it will sweat or frost unless insulated with a sealed vapour retarder.`,
         };
+      case 'BARE_FITTINGS_ABOVE_TOUCH_LIMIT':
+        return { code: hazard.code, flag: 'Bare fittings burn', tone: 'heat', sentence: hazard.message };
+      case 'BARE_FITTINGS_BELOW_DEW_POINT':
+        return { code: hazard.code, flag: 'Bare fittings drip', tone: 'cold', sentence: hazard.message };
       case 'MATERIAL_ABOVE_SERVICE_LIMIT':
       case 'MATERIAL_BELOW_SERVICE_LIMIT':
         return { code: hazard.code, flag: 'Insulation outside its rating', tone: 'plain', sentence: hazard.message };
@@ -302,12 +313,19 @@ function RunTable({ result, system }: { result: PlantResult; system: UnitSystem 
                     )}
                   </td>
                   <td>
-                    <span className="block">
-                      {thickness(run.proposed.thicknessM)} {materialName(run.proposed.material).toLowerCase()}
-                    </span>
-                    <span className="block text-graphite-soft">
-                      {surfaceName(run.proposed.jacket)}; surface {temp(run.proposed.surfaceTemperatureC)}
-                    </span>
+                    {run.proposed.option === 'leave' ? (
+                      <span className="block">{OPTION_WORDS.leave}</span>
+                    ) : (
+                      <>
+                        <span className="block">
+                          {OPTION_WORDS[run.proposed.option]}: {thickness(run.proposed.thicknessM)} {materialName(run.proposed.material).toLowerCase()}
+                        </span>
+                        <span className="block text-graphite-soft">
+                          {surfaceName(run.proposed.jacket)}; surface {temp(run.proposed.surfaceTemperatureC)}
+                        </span>
+                      </>
+                    )}
+                    <span className="block text-graphite-soft">{run.choice.message}</span>
                   </td>
                   <td>{run.economicThickness ? thickness(run.economicThickness.thicknessM) : '—'}</td>
                   <td className="text-mineral font-extrabold">{money(run.savings.annualCost)}</td>
