@@ -20,6 +20,7 @@ import {
   uuid,
 } from 'drizzle-orm/pg-core';
 import { user } from './auth-schema';
+import { assessmentStatuses } from './statuses';
 
 export * from './auth-schema';
 
@@ -31,19 +32,7 @@ const timestamps = {
     .$onUpdate(() => new Date()),
 };
 
-/** Pipeline states of an assessment, in our own words (see the product brief). */
-export const assessmentStatuses = [
-  'fresh',
-  'claimed',
-  'in_touch',
-  'site_walk_booked',
-  'report_sent',
-  'signed',
-  'closed',
-  'unrouted',
-  'junk',
-] as const;
-export type AssessmentStatus = (typeof assessmentStatuses)[number];
+export { assessmentStatuses, type AssessmentStatus } from './statuses';
 export const assessmentStatus = pgEnum('assessment_status', assessmentStatuses);
 
 /** A territory a consultant covers: one country and the postal-code prefixes within it. */
@@ -120,13 +109,58 @@ export const assessments = pgTable(
     engineVersion: text('engine_version').notNull(),
     /** The submitter's key, so a double click stores one assessment. */
     idempotencyKey: text('idempotency_key').unique(),
+    /*
+     * Headline figures copied out of the result snapshot (see src/lib/assessments/headline.ts)
+     * so the desk's lists sort and filter on plain columns instead of unpacking every snapshot.
+     * Written with the snapshot: on submission and on every recompute.
+     */
+    /** The plant's currency (ISO 4217) all the money columns are in. */
+    currency: char('currency', { length: 3 }).notNull(),
+    /** Likely yearly cost of the heat lost (or gained) today. */
+    annualLossCost: doublePrecision('annual_loss_cost').notNull(),
+    /** 10th and 90th percentile of the yearly loss cost. */
+    annualLossCostLow: doublePrecision('annual_loss_cost_low').notNull(),
+    annualLossCostHigh: doublePrecision('annual_loss_cost_high').notNull(),
+    /** Likely yearly saving if the runs are insulated as proposed. */
+    annualSavingCost: doublePrecision('annual_saving_cost').notNull(),
+    runCount: integer('run_count').notNull(),
+    photoCount: integer('photo_count').notNull(),
+    /** Runs with a burn or condensation flag. */
+    hazardRunCount: integer('hazard_run_count').notNull(),
+    /** Services present among the runs (engine service ids), sorted, each once. */
+    services: text('services').array().notNull(),
     ...timestamps,
   },
   (t) => [
     index('assessments_status_region_idx').on(t.status, t.regionId),
     index('assessments_owner_idx').on(t.ownerUserId),
     index('assessments_claimed_by_idx').on(t.claimedByUserId),
+    // The open-leads list: fresh leads of a region, newest first (its default order).
+    index('assessments_open_list_idx')
+      .on(t.regionId, t.createdAt.desc(), t.id.desc())
+      .where(sql`${t.status} = 'fresh'`),
   ],
+);
+
+/** Open claims a consultant may hold at once unless the admin sets another number. */
+export const DEFAULT_OPEN_CLAIM_CAP = 5;
+
+/**
+ * What the desk needs to know about a consultant beyond their account: the firm owners are told
+ * about, a phone number, and how many open claims they may hold at once (the admin sets it).
+ */
+export const consultantProfiles = pgTable(
+  'consultant_profiles',
+  {
+    userId: uuid('user_id')
+      .primaryKey()
+      .references(() => user.id, { onDelete: 'cascade' }),
+    firm: text('firm').notNull(),
+    phone: text('phone'),
+    openClaimCap: integer('open_claim_cap').notNull().default(DEFAULT_OPEN_CLAIM_CAP),
+    ...timestamps,
+  },
+  (t) => [check('consultant_profiles_cap_range', sql`${t.openClaimCap} between 1 and 100`)],
 );
 
 /** One straight run of pipe in an assessment, in the order the owner listed them. */
@@ -206,6 +240,10 @@ export const regionPostalPrefixesRelations = relations(regionPostalPrefixes, ({ 
   region: one(regions, { fields: [regionPostalPrefixes.regionId], references: [regions.id] }),
 }));
 
+export const consultantProfilesRelations = relations(consultantProfiles, ({ one }) => ({
+  user: one(user, { fields: [consultantProfiles.userId], references: [user.id] }),
+}));
+
 export const regionConsultantsRelations = relations(regionConsultants, ({ one }) => ({
   region: one(regions, { fields: [regionConsultants.regionId], references: [regions.id] }),
   user: one(user, { fields: [regionConsultants.userId], references: [user.id] }),
@@ -236,3 +274,4 @@ export type NewAssessment = typeof assessments.$inferInsert;
 export type PipeRun = typeof pipeRuns.$inferSelect;
 export type Attachment = typeof attachments.$inferSelect;
 export type ActivityEntry = typeof activityLog.$inferSelect;
+export type ConsultantProfile = typeof consultantProfiles.$inferSelect;

@@ -70,7 +70,8 @@ function fallbackMessage(status: number): string {
   return 'The request was refused.';
 }
 
-async function send<T>(url: string, init: RequestInit, isBody: (body: unknown) => body is T): Promise<ApiResult<T>> {
+/** One request to our API, resolved to a typed success or a failure with its issues (shared by ./desk-client). */
+export async function send<T>(url: string, init: RequestInit, isBody: (body: unknown) => body is T): Promise<ApiResult<T>> {
   let response: Response;
   try {
     response = await fetch(url, { credentials: 'same-origin', ...init });
@@ -155,3 +156,4 @@ export function submitAssessment(form: FormData, idempotencyKey: string): Promis
     isSubmitResponse,
   );
 }
+

@@ -5,6 +5,7 @@
 export type DomainErrorCode =
   | 'NOT_FOUND'
   | 'ALREADY_CLAIMED'
+  | 'CLAIM_LIMIT'
   | 'INVALID_TRANSITION'
   | 'CONFLICT'
   | 'UNPROCESSABLE'
@@ -19,6 +20,8 @@ export class DomainError extends Error {
     readonly code: DomainErrorCode,
     message: string,
     readonly field?: string,
+    /** Plain data the caller can act on (e.g. who claimed a lead first, and when). */
+    readonly details?: Record<string, unknown>,
   ) {
     super(message);
     this.name = 'DomainError';

@@ -20,12 +20,13 @@ export interface Issue {
 }
 
 export interface ErrorBody {
-  error: { code: string; message: string; issues?: Issue[] };
+  error: { code: string; message: string; issues?: Issue[]; details?: Record<string, unknown> };
 }
 
 const domainStatus: Record<DomainErrorCode, number> = {
   NOT_FOUND: 404,
   ALREADY_CLAIMED: 409,
+  CLAIM_LIMIT: 409,
   INVALID_TRANSITION: 409,
   CONFLICT: 409,
   UNPROCESSABLE: 422,
@@ -43,8 +44,8 @@ export function json(body: unknown, status = 200, headers: HeadersInit = {}): Re
   });
 }
 
-export function errorResponse(status: number, code: string, message: string, issues?: Issue[]): Response {
-  const body: ErrorBody = { error: { code, message, ...(issues ? { issues } : {}) } };
+export function errorResponse(status: number, code: string, message: string, issues?: Issue[], details?: Record<string, unknown>): Response {
+  const body: ErrorBody = { error: { code, message, ...(issues ? { issues } : {}), ...(details ? { details } : {}) } };
   return json(body, status);
 }
 
@@ -107,7 +108,7 @@ export function responseForError(error: unknown, context: { method: string; path
   if (error instanceof HttpResponseError) return error.response;
   if (error instanceof DomainError) {
     const issues = error.field ? [{ path: error.field, message: error.message }] : undefined;
-    return errorResponse(domainStatus[error.code], error.code, error.message, issues);
+    return errorResponse(domainStatus[error.code], error.code, error.message, issues, error.details);
   }
   if (isEngineError(error)) {
     const issues = error.issues.length

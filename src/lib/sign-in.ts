@@ -9,12 +9,16 @@ import { hitRateLimit } from '../db/queries/rate-limits';
 import { user } from '../db/schema';
 import { getAuth } from './auth';
 
-/** Only local paths, so a crafted link cannot send someone to another site after sign-in. */
+/**
+ * Only local paths, so a crafted link cannot send someone to another site after sign-in; anything
+ * else is dropped and the person lands on their role's home (`homeFor`).
+ */
 export const nextPathSchema = z
   .string()
   .regex(/^\/(?!\/)[A-Za-z0-9\-._~/?=&%]*$/)
   .max(300)
-  .catch('/my/assessments');
+  .optional()
+  .catch(undefined);
 
 export const linkRequestSchema = z.object({
   email: z
@@ -22,7 +26,7 @@ export const linkRequestSchema = z.object({
     .trim()
     .toLowerCase()
     .pipe(z.email({ error: 'Enter an e-mail address like name@plant.com.' })),
-  next: nextPathSchema.optional(),
+  next: nextPathSchema,
 });
 
 export const passwordSignInSchema = z.object({
@@ -32,7 +36,7 @@ export const passwordSignInSchema = z.object({
     .toLowerCase()
     .pipe(z.email({ error: 'Enter an e-mail address like name@firm.com.' })),
   password: z.string({ error: 'Enter your password.' }).min(1, { error: 'Enter your password.' }).max(200),
-  next: nextPathSchema.optional(),
+  next: nextPathSchema,
 });
 
 /**
@@ -54,11 +58,14 @@ export async function requestSignInLink(email: string, nextPath: string, clientA
 /** The sign-in page with a message, keeping where the visitor was going. */
 export function signInPageUrl(query: Record<string, string>, next: unknown, anchor: 'owner' | 'team'): string {
   const params = new URLSearchParams(query);
-  if (typeof next === 'string' && next) params.set('next', nextPathSchema.parse(next));
+  const local = nextPathSchema.parse(next);
+  if (local) params.set('next', local);
   return `/sign-in?${params.toString()}#${anchor}`;
 }
 
-/** The page a role lands on after signing in. */
+/** The page a role lands on after signing in: the desk, the admin area, or the owner's assessments. */
 export function homeFor(role: string | null | undefined): string {
-  return role === 'owner' || !role ? '/my/assessments' : '/account';
+  if (role === 'consultant') return '/desk';
+  if (role === 'admin') return '/admin';
+  return '/my/assessments';
 }

@@ -17,10 +17,10 @@ describe('signing in from the sign-in page', () => {
     await closeDb();
   });
 
-  it('a consultant signs in with e-mail and password and lands on their account', async () => {
+  it('a consultant signs in with e-mail and password and lands on the desk', async () => {
     const response = await postForm('/api/sign-in/password', { email: 'marisol@quintero-thermal.example', password: DEMO_PASSWORD });
     expect(response.status).toBe(303);
-    expect(response.headers.get('location')).toBe('/account');
+    expect(response.headers.get('location')).toBe('/desk');
     const page = await appFetch('/account', { headers: { cookie: cookiesOf(response) } });
     expect(page.status).toBe(200);
     const html = await page.text();
@@ -29,20 +29,20 @@ describe('signing in from the sign-in page', () => {
   });
 
   it('a visitor sent to sign in from a page goes back to it, and a crafted address elsewhere is ignored', async () => {
-    const page = await (await appFetch('/sign-in?next=%2Fmy%2Fassessments')).text();
-    expect(page).toContain('name="next" value="/my/assessments"');
+    const page = await (await appFetch('/sign-in?next=%2Fdesk%2Fmine')).text();
+    expect(page).toContain('name="next" value="/desk/mine"');
     const back = await postForm('/api/sign-in/password', {
       email: 'priya@raman-audits.example',
       password: DEMO_PASSWORD,
-      next: '/my/assessments',
+      next: '/desk/mine',
     });
-    expect(back.headers.get('location')).toBe('/my/assessments');
+    expect(back.headers.get('location')).toBe('/desk/mine');
     const away = await postForm('/api/sign-in/password', {
       email: 'priya@raman-audits.example',
       password: DEMO_PASSWORD,
       next: '//elsewhere.example/steal',
     });
-    expect(away.headers.get('location')).toBe('/my/assessments');
+    expect(away.headers.get('location')).toBe('/desk');
   });
 
   it('a wrong password goes back to the form with a message, and no session', async () => {

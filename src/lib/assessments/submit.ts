@@ -19,6 +19,7 @@ import { enqueue, jobNames } from '../jobs/queue';
 import { normalisePostalCode, type CountryCode } from '../routing/postal-code';
 import { deleteObjects, putObject } from '../storage/objects';
 import type { CleanPhoto } from '../uploads/photos';
+import { headlineColumnsOf, isPhoto } from './headline';
 import { newAssessmentReference } from './reference';
 
 export interface SubmittedPhoto {
@@ -134,6 +135,7 @@ export async function submitAssessment(
           questionnaire: { plant: input.plant, estimate: estimateWithoutRuns },
           resultSnapshot: result,
           engineVersion: ENGINE_VERSION,
+          ...headlineColumnsOf(result, stored.filter(({ photo }) => isPhoto(photo.photo.contentType)).length),
           idempotencyKey: context.idempotencyKey ?? null,
         },
         runs.map((run) => ({ label: run.label, service: run.service, lengthM: run.lengthM, spec: run })),

@@ -9,6 +9,7 @@ export type OutgoingEmail =
       to: string;
       props: { signInUrl: string; assessmentId: string };
     }
-  | { template: 'consultant-alert'; to: string; props: { assessmentId: string; consultantName: string } };
+  | { template: 'consultant-alert'; to: string; props: { assessmentId: string; consultantName: string; reopened?: boolean } }
+  | { template: 'consultant-introduction'; to: string; props: { assessmentId: string; consultantUserId: string } };
 
 export type EmailTemplateName = OutgoingEmail['template'];

@@ -13,6 +13,8 @@ import { appBaseUrl } from '../site';
 import type { RenderedEmail } from './mailer';
 import type { OutgoingEmail } from './messages';
 import { ConsultantAlert, consultantAlertSubject } from './templates/ConsultantAlert';
+import { ConsultantIntroduction, consultantIntroductionSubject } from './templates/ConsultantIntroduction';
+import { findConsultantProfile } from '../../db/queries/leads';
 import { SignInLink, signInLinkSubject } from './templates/SignInLink';
 import { SubmissionConfirmation, submissionConfirmationSubject } from './templates/SubmissionConfirmation';
 
@@ -74,9 +76,27 @@ export async function renderEmail(email: OutgoingEmail): Promise<RenderedEmail> 
         annualCost: money(result.totals.current.annualCost),
         annualSaving: money(result.totals.savings.annualCost),
         hazardCount,
-        claimUrl: `${appBaseUrl()}/sign-in`,
+        claimUrl: `${appBaseUrl()}/desk/leads/${found.id}`,
+        ...(email.props.reopened ? { reopened: true } : {}),
       };
       return { to: email.to, subject: consultantAlertSubject(props), ...(await both(createElement(ConsultantAlert, props))) };
+    }
+    case 'consultant-introduction': {
+      const found = await getAssessmentForMail(getDb(), email.props.assessmentId);
+      if (!found) throw new NothingToSend(`assessment ${email.props.assessmentId} no longer exists`);
+      const consultant = await findConsultantProfile(getDb(), email.props.consultantUserId);
+      if (!consultant) throw new NothingToSend(`consultant ${email.props.consultantUserId} no longer exists`);
+      const props = {
+        contactName: found.contactName,
+        reference: found.reference,
+        plantLabel: found.plantName || found.companyName,
+        consultantName: consultant.name,
+        firm: consultant.firm,
+        phone: consultant.phone,
+        email: consultant.email,
+        assessmentUrl: `${appBaseUrl()}/my/assessments/${found.id}`,
+      };
+      return { to: email.to, subject: consultantIntroductionSubject(props), ...(await both(createElement(ConsultantIntroduction, props))) };
     }
   }
 }

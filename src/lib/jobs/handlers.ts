@@ -51,7 +51,10 @@ export const jobHandlers: { [N in JobName]: Handler<N> } = {
       const assessment = await getAssessmentForMail(getDb(), job.data.assessmentId);
       if (!assessment) throw new NothingToSend(`assessment ${job.data.assessmentId} no longer exists`);
       if (!assessment.regionId) return;
-      const consultants = await listRegionConsultants(getDb(), assessment.regionId);
+      // Someone claimed the reopened lead before this job ran: nobody needs telling.
+      if (job.data.reopened && assessment.status !== 'fresh') return;
+      const excluded = new Set(job.data.excludeUserIds ?? []);
+      const consultants = (await listRegionConsultants(getDb(), assessment.regionId)).filter((c) => !excluded.has(c.id));
       // One transaction: a retry after a crash queues every alert again or none twice.
       await inTransaction(async (_tx, sqlRunner) => {
         for (const consultant of consultants) {
@@ -61,7 +64,7 @@ export const jobHandlers: { [N in JobName]: Handler<N> } = {
               email: {
                 template: 'consultant-alert',
                 to: consultant.email,
-                props: { assessmentId: assessment.id, consultantName: consultant.name },
+                props: { assessmentId: assessment.id, consultantName: consultant.name, ...(job.data.reopened ? { reopened: true } : {}) },
               },
             },
             { sqlRunner },

@@ -15,7 +15,11 @@ export type JobName = (typeof jobNames)[keyof typeof jobNames];
 export interface JobPayloads {
   'email-send': { email: OutgoingEmail };
   'submission-confirm': { assessmentId: string };
-  'consultants-alert': { assessmentId: string };
+  /**
+   * `reopened`: a consultant handed the lead back, so it is open again; `excludeUserIds`: who not
+   * to tell (the one who handed it back).
+   */
+  'consultants-alert': { assessmentId: string; reopened?: boolean; excludeUserIds?: string[] };
 }
 
 /** Retry policy per queue: mail keeps trying for hours so an outage delays and loses nothing. */

@@ -4,6 +4,7 @@
  * (`assessments/<assessmentId>/<uuid>.jpg`), never an uploader's file name.
  */
 import { DeleteObjectCommand, GetObjectCommand, NoSuchKey, PutObjectCommand, S3Client, S3ServiceException } from '@aws-sdk/client-s3';
+import { getSignedUrl } from '@aws-sdk/s3-request-presigner';
 import { DomainError } from '../errors';
 
 export interface StoredObject {
@@ -127,4 +128,18 @@ export async function deleteObjects(keys: readonly string[]): Promise<void> {
       throw asOutage(error, `delete ${key}`);
     }
   }
+}
+
+/** How long a signed photo link works: long enough to look, too short to pass around. */
+export const SIGNED_LINK_SECONDS = 300;
+
+/**
+ * A short-lived link that lets a browser fetch one private object directly from storage.
+ * Signing is local (no request to storage), so it cannot fail for an outage.
+ */
+export async function signedReadUrl(key: string, expiresInSeconds = SIGNED_LINK_SECONDS): Promise<{ url: string; expiresAt: Date }> {
+  checkKey(key);
+  const { client, bucket } = connect();
+  const url = await getSignedUrl(client, new GetObjectCommand({ Bucket: bucket, Key: key }), { expiresIn: expiresInSeconds });
+  return { url, expiresAt: new Date(Date.now() + expiresInSeconds * 1000) };
 }

@@ -14,18 +14,24 @@ export interface ConsultantAlertProps {
   annualSaving: string;
   hazardCount: number;
   claimUrl: string;
+  /** The lead was handed back by the consultant who held it and is open again. */
+  reopened?: boolean;
 }
 
-export const consultantAlertSubject = (p: Pick<ConsultantAlertProps, 'regionName' | 'plantType' | 'reference'>) =>
-  `New lead in ${p.regionName}: ${p.plantType.toLowerCase()} (${p.reference})`;
+export const consultantAlertSubject = (p: Pick<ConsultantAlertProps, 'regionName' | 'plantType' | 'reference' | 'reopened'>) =>
+  `${p.reopened ? 'Open again' : 'New lead'} in ${p.regionName}: ${p.plantType.toLowerCase()} (${p.reference})`;
 
 export function ConsultantAlert(p: ConsultantAlertProps) {
   return (
     <Frame preview={`A ${p.plantType.toLowerCase()} in ${p.area} is losing about ${p.annualCost} a year through bare pipe.`}>
       <Heading as="h1" style={{ fontSize: 22, margin: '0 0 14px' }}>
-        A new lead in {p.regionName}
+        {p.reopened ? `A lead is open again in ${p.regionName}` : `A new lead in ${p.regionName}`}
       </Heading>
-      <Text style={textStyle}>Hello {p.consultantName}, an owner in your region has sent an assessment.</Text>
+      <Text style={textStyle}>
+        {p.reopened
+          ? `Hello ${p.consultantName}, the consultant who took on this assessment has handed it back; it is open to claim again.`
+          : `Hello ${p.consultantName}, an owner in your region has sent an assessment.`}
+      </Text>
       <Section style={{ backgroundColor: mailColours.paper, borderRadius: 6, padding: '14px 18px', margin: '0 0 16px' }}>
         <Text style={{ ...textStyle, margin: '0 0 4px' }}>
           <strong>{p.reference}</strong> · {p.plantType} · postal area {p.area}

@@ -1,0 +1,48 @@
+/**
+ * The desk's part of the typed client (./api-client): lead lists, claims and pipeline moves.
+ * Answers are checked against the same zod schemas the server answers with
+ * (src/schemas/leads.ts). Apart from ./api-client so the estimate page does not load them.
+ */
+import type { z } from 'zod';
+import {
+  claimResponseSchema,
+  leadListResponseSchema,
+  moveResponseSchema,
+  noteResponseSchema,
+  releaseResponseSchema,
+  type LeadListResponse,
+  type moveRequestSchema,
+  type noteRequestSchema,
+  type releaseRequestSchema,
+} from '../schemas/leads';
+import { send, type ApiResult } from './api-client';
+
+function jsonPost(body: unknown): RequestInit {
+  return { method: 'POST', headers: { 'content-type': 'application/json', accept: 'application/json' }, body: JSON.stringify(body) };
+}
+
+const parsesWith =
+  <T>(schema: { safeParse: (value: unknown) => { success: boolean } }) =>
+  (body: unknown): body is T =>
+    schema.safeParse(body).success;
+
+/** One page of leads; `search` is the query string the desk's filters make (view, page, sort, filters). */
+export function fetchLeads(search: string, signal?: AbortSignal): Promise<ApiResult<LeadListResponse>> {
+  return send(`/api/leads?${search}`, { headers: { accept: 'application/json' }, ...(signal ? { signal } : {}) }, parsesWith<LeadListResponse>(leadListResponseSchema));
+}
+
+export function claimLead(leadId: string): Promise<ApiResult<z.infer<typeof claimResponseSchema>>> {
+  return send(`/api/leads/${encodeURIComponent(leadId)}/claim`, jsonPost({}), parsesWith(claimResponseSchema));
+}
+
+export function moveLead(leadId: string, move: z.input<typeof moveRequestSchema>): Promise<ApiResult<z.infer<typeof moveResponseSchema>>> {
+  return send(`/api/leads/${encodeURIComponent(leadId)}/moves`, jsonPost(move), parsesWith(moveResponseSchema));
+}
+
+export function releaseLead(leadId: string, release: z.input<typeof releaseRequestSchema>): Promise<ApiResult<z.infer<typeof releaseResponseSchema>>> {
+  return send(`/api/leads/${encodeURIComponent(leadId)}/release`, jsonPost(release), parsesWith(releaseResponseSchema));
+}
+
+export function addLeadNote(leadId: string, note: z.input<typeof noteRequestSchema>): Promise<ApiResult<z.infer<typeof noteResponseSchema>>> {
+  return send(`/api/leads/${encodeURIComponent(leadId)}/notes`, jsonPost(note), parsesWith(noteResponseSchema));
+}
