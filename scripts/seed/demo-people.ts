@@ -25,6 +25,8 @@ export interface DemoAccount {
   name: string;
   role: 'admin' | 'consultant' | 'owner';
   company?: string;
+  /** The consultant's phone, told to owners when they claim a lead. */
+  phone?: string;
   regions?: string[];
 }
 
@@ -35,6 +37,7 @@ export const demoAccounts: DemoAccount[] = [
     name: 'Marisol Quintero',
     role: 'consultant',
     company: 'Quintero Thermal Works',
+    phone: '+1 503 555 0191',
     regions: ['cascade-foothills'],
   },
   {
@@ -42,6 +45,7 @@ export const demoAccounts: DemoAccount[] = [
     name: 'Anders Kvale',
     role: 'consultant',
     company: 'Kvale Mechanical Insulation',
+    phone: '+1 503 555 0177',
     regions: ['cascade-foothills'],
   },
   {
@@ -49,6 +53,7 @@ export const demoAccounts: DemoAccount[] = [
     name: 'Tobias Wendt',
     role: 'consultant',
     company: 'Wendt Pipe & Energy',
+    phone: '+1 248 555 0133',
     regions: ['lakeshore-north'],
   },
   {
@@ -56,6 +61,7 @@ export const demoAccounts: DemoAccount[] = [
     name: 'Declan Hollis',
     role: 'consultant',
     company: 'Hollis Lagging Co.',
+    phone: '+1 518 555 0164',
     regions: ['green-mountain-upper-hudson'],
   },
   {
@@ -63,6 +69,7 @@ export const demoAccounts: DemoAccount[] = [
     name: 'Priya Raman',
     role: 'consultant',
     company: 'Raman Energy Audits',
+    phone: '+1 905 555 0120',
     regions: ['lake-ontario-west', 'niagara-bench'],
   },
   {
@@ -70,6 +77,7 @@ export const demoAccounts: DemoAccount[] = [
     name: 'Ffion Baird',
     role: 'consultant',
     company: 'Baird Insulation Services',
+    phone: '+44 1423 555 019',
     regions: ['dales-and-moors'],
   },
 ];

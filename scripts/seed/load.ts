@@ -4,6 +4,7 @@
  */
 import { eq } from 'drizzle-orm';
 import { closeDb, getDb } from '../../src/db/client';
+import { upsertConsultantProfile } from '../../src/db/queries/leads';
 import { regionConsultants, regionPostalPrefixes, regions, user } from '../../src/db/schema';
 import { getAuth } from '../../src/lib/auth';
 import { stopSender } from '../../src/lib/jobs/queue';
@@ -41,6 +42,9 @@ async function seedAccounts(regionIds: Map<string, string>): Promise<number> {
       existing = { id: made.user.id };
       await db.update(user).set({ emailVerified: true }).where(eq(user.id, made.user.id));
       created += 1;
+    }
+    if (account.role === 'consultant' && account.company) {
+      await upsertConsultantProfile(db, { userId: existing.id, firm: account.company, phone: account.phone ?? null });
     }
     for (const slug of account.regions ?? []) {
       const regionId = regionIds.get(slug);
