@@ -45,16 +45,50 @@ export function sampleRanges(
   const co2SavingS = new Float64Array(n);
   const installedS = new Float64Array(n);
   const paybackS = new Float64Array(n);
+  // Column by column in typed arrays: the inner loop runs samples × runs times.
+  const runCount = terms.length;
+  const column = (pick: (t: SampleTerms) => number) => Float64Array.from(terms, pick);
+  const col = {
+    lengthM: column((t) => t.lengthM),
+    lengthSpread: column((t) => t.lengthSpread),
+    hours: column((t) => t.hours),
+    cold: Uint8Array.from(terms, (t) => (t.cold ? 1 : 0)),
+    costPerJHeat: column((t) => t.costPerJHeat),
+    co2PerJHeat: column((t) => t.co2PerJHeat),
+    currentBareWPerM: column((t) => t.currentBareWPerM),
+    currentInsulatedWPerM: column((t) => t.currentInsulatedWPerM),
+    bareFraction: column((t) => t.bareFraction),
+    bareFractionSpread: column((t) => t.bareFractionSpread),
+    currentFittingsBareW: column((t) => t.currentFittingsBareW),
+    currentFittingsInsulatedW: column((t) => t.currentFittingsInsulatedW),
+    proposedBareWPerM: column((t) => t.proposedBareWPerM),
+    proposedInsulatedWPerM: column((t) => t.proposedInsulatedWPerM),
+    proposedBareFraction: column((t) => t.proposedBareFraction),
+    proposedFittingsBareW: column((t) => t.proposedFittingsBareW),
+    proposedFittingsInsulatedW: column((t) => t.proposedFittingsInsulatedW),
+    bareSensitivityPerK: column((t) => t.bareSensitivityPerK),
+    bareSensitivityPerMPerS: column((t) => t.bareSensitivityPerMPerS),
+    bareSensitivityPerEmittance: column((t) => t.bareSensitivityPerEmittance),
+    insulatedSensitivityPerK: column((t) => t.insulatedSensitivityPerK),
+    airSpreadK: column((t) => t.airSpreadK),
+    speedSpreadMPerS: column((t) => t.speedSpreadMPerS),
+    emittanceSpread: column((t) => t.emittanceSpread),
+    conditionSpread: column((t) => t.conditionSpread),
+    installedPerMetre: column((t) => t.installedPerMetre),
+    installedFixed: column((t) => t.installedFixed),
+    priceSpread: column((t) => t.priceSpread),
+  };
   for (let s = 0; s < n; s++) {
     const hoursFactor = triangularFactor(hoursSpread, random());
     const fuelFactor = triangularFactor(priceSpread, random());
     // The efficiency cannot pass 1, so its factor is capped where it would.
     const efficiencyFactor = Math.min(triangularFactor(efficiencySpread, random()), 1 / boilerEfficiency);
-    const uAir = random();
-    const uSpeed = random();
-    const uEmittance = random();
-    const uCondition = random();
-    const uPrice = random();
+    // Shared by every run of the sample: the air, the surfaces and the prices err together.
+    const airOffset = triangularFactor(1, random()) - 1;
+    const speedOffset = triangularFactor(1, random()) - 1;
+    const emittanceOffset = triangularFactor(1, random()) - 1;
+    const conditionOffset = triangularFactor(1, random()) - 1;
+    const priceOffset = triangularFactor(1, random()) - 1;
     let currentCost = 0;
     let currentHeat = 0;
     let currentCo2 = 0;
@@ -62,36 +96,42 @@ export function sampleRanges(
     let proposedHeat = 0;
     let proposedCo2 = 0;
     let installed = 0;
-    for (const t of terms) {
-      const length = t.lengthM * triangularFactor(t.lengthSpread, random());
+    for (let r = 0; r < runCount; r++) {
+      const length = col.lengthM[r]! * triangularFactor(col.lengthSpread[r]!, random());
+      const bareFractionSpread = col.bareFractionSpread[r]!;
       const fraction =
-        t.bareFractionSpread > 0 ? Math.min(1, Math.max(0, t.bareFraction * triangularFactor(t.bareFractionSpread, random()))) : t.bareFraction;
-      const dAir = (triangularFactor(1, uAir) - 1) * t.airSpreadK;
-      const dSpeed = (triangularFactor(1, uSpeed) - 1) * t.speedSpreadMPerS;
-      const dEmittance = (triangularFactor(1, uEmittance) - 1) * t.emittanceSpread;
-      const bareFactor = Math.max(0, 1 + t.bareSensitivityPerK * dAir + t.bareSensitivityPerMPerS * dSpeed + t.bareSensitivityPerEmittance * dEmittance);
-      const insulatedFactor = Math.max(0, 1 + t.insulatedSensitivityPerK * dAir);
-      const conditionFactor = triangularFactor(t.conditionSpread, uCondition);
-      const seconds = Math.min(HOURS_PER_YEAR, t.hours * hoursFactor) * SECONDS_PER_HOUR;
+        bareFractionSpread > 0 ? Math.min(1, Math.max(0, col.bareFraction[r]! * triangularFactor(bareFractionSpread, random()))) : col.bareFraction[r]!;
+      const bareFactor = Math.max(
+        0,
+        1 +
+          col.bareSensitivityPerK[r]! * airOffset * col.airSpreadK[r]! +
+          col.bareSensitivityPerMPerS[r]! * speedOffset * col.speedSpreadMPerS[r]! +
+          col.bareSensitivityPerEmittance[r]! * emittanceOffset * col.emittanceSpread[r]!,
+      );
+      const insulatedFactor = Math.max(0, 1 + col.insulatedSensitivityPerK[r]! * airOffset * col.airSpreadK[r]!);
+      const conditionFactor = 1 + conditionOffset * col.conditionSpread[r]!;
+      const seconds = Math.min(HOURS_PER_YEAR, col.hours[r]! * hoursFactor) * SECONDS_PER_HOUR;
       const currentW =
-        length * (fraction * t.currentBareWPerM * bareFactor + (1 - fraction) * t.currentInsulatedWPerM * insulatedFactor * conditionFactor) +
-        t.currentFittingsBareW * bareFactor +
-        t.currentFittingsInsulatedW * insulatedFactor;
+        length * (fraction * col.currentBareWPerM[r]! * bareFactor + (1 - fraction) * col.currentInsulatedWPerM[r]! * insulatedFactor * conditionFactor) +
+        col.currentFittingsBareW[r]! * bareFactor +
+        col.currentFittingsInsulatedW[r]! * insulatedFactor;
+      const proposedBareFraction = col.proposedBareFraction[r]!;
       const proposedW =
-        length * (t.proposedBareFraction * t.proposedBareWPerM * bareFactor + (1 - t.proposedBareFraction) * t.proposedInsulatedWPerM * insulatedFactor) +
-        t.proposedFittingsBareW * bareFactor +
-        t.proposedFittingsInsulatedW * insulatedFactor;
+        length * (proposedBareFraction * col.proposedBareWPerM[r]! * bareFactor + (1 - proposedBareFraction) * col.proposedInsulatedWPerM[r]! * insulatedFactor) +
+        col.proposedFittingsBareW[r]! * bareFactor +
+        col.proposedFittingsInsulatedW[r]! * insulatedFactor;
       const currentJ = currentW * seconds;
       const proposedJ = proposedW * seconds;
-      const perJCost = t.cold ? t.costPerJHeat * fuelFactor : (t.costPerJHeat * fuelFactor) / efficiencyFactor;
-      const perJCo2 = t.cold ? t.co2PerJHeat : t.co2PerJHeat / efficiencyFactor;
+      const cold = col.cold[r] === 1;
+      const perJCost = cold ? col.costPerJHeat[r]! * fuelFactor : (col.costPerJHeat[r]! * fuelFactor) / efficiencyFactor;
+      const perJCo2 = cold ? col.co2PerJHeat[r]! : col.co2PerJHeat[r]! / efficiencyFactor;
       currentCost += currentJ * perJCost;
       currentHeat += currentJ;
       currentCo2 += currentJ * perJCo2;
       proposedCost += proposedJ * perJCost;
       proposedHeat += proposedJ;
       proposedCo2 += proposedJ * perJCo2;
-      installed += (t.installedPerMetre * length + t.installedFixed) * triangularFactor(t.priceSpread, uPrice);
+      installed += (col.installedPerMetre[r]! * length + col.installedFixed[r]!) * (1 + priceOffset * col.priceSpread[r]!);
     }
     currentCostS[s] = currentCost;
     currentHeatS[s] = currentHeat / J_PER_GJ;

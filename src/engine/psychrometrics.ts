@@ -29,6 +29,15 @@ export function vapourPressureKPa(temperatureC: number, relativeHumidityPercent:
   return (relativeHumidityPercent / 100) * saturationVapourPressureKPa(temperatureC);
 }
 
+/** Dew point (frost point below 0 °C) of air holding vapour at this partial pressure, °C (Magnus forms above). */
+export function dewPointFromVapourKPa(vapourKPa: number): number {
+  const gamma = Math.log(vapourKPa / 0.61094);
+  const overWater = (WATER_B_C * gamma) / (WATER_A - gamma);
+  if (overWater >= 0) return overWater;
+  const iceGamma = gamma - Math.log(6.1115 / 6.1094);
+  return (ICE_B_C * iceGamma) / (ICE_A - iceGamma);
+}
+
 /**
  * Dew point of moist air (frost point below 0 °C), by the Magnus form.
  *

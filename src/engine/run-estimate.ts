@@ -8,6 +8,7 @@ import type { InstalledCostTable } from './data/installed-cost-demo';
 import type { InsulationMaterial } from './data/insulation-materials';
 import { fittingCoverCost, installedCostPerMetre, simplePaybackYears } from './economics';
 import { EngineError } from './errors';
+import { walkStockSeries, type SeriesPoint } from './least-thickness';
 import { interpretMeasurements, type MeasurementReading } from './measurements';
 import type { OptionKind, ParsedPlantInput, ParsedPlantRun } from './plant-input';
 import type {
@@ -21,7 +22,7 @@ import type {
 } from './plant-result';
 import { vapourPressureKPa } from './psychrometrics';
 import type { ParsedRunInput } from './run-input';
-import { prepareRun, solvePreparedRun, type PreparedRun, type RunWarning } from './run';
+import { prepareRun, type PreparedRun, type RunWarning } from './run';
 import { solveLean, solveResolvedRun, type ResolvedLayer, type ResolvedRun } from './run-solver';
 import { formatNumber } from './schema-helpers';
 import { saturationTemperatureC } from './steam-properties';
@@ -88,6 +89,27 @@ interface SolvedState {
   /** Signed W/m (positive out of the line). */
   readonly wPerM: number;
   readonly surfaceC: number;
+}
+
+type MutableRun = { -readonly [K in keyof ResolvedRun]: ResolvedRun[K] };
+type MutableLayer = { -readonly [K in keyof ResolvedLayer]: ResolvedLayer[K] };
+
+/** A stock thickness of an option's series, in the shape the options are built from. */
+interface SeriesEntry {
+  readonly t: number;
+  readonly avg: SolvedState;
+  readonly design: SolvedState | null;
+  readonly meets: boolean;
+}
+
+/** A walked point as a series entry, its loss scaled by the insulation's condition factor where one applies. */
+function toSeriesEntry(factor: number): (p: SeriesPoint) => SeriesEntry {
+  return (p) => ({
+    t: p.thicknessM,
+    avg: { wPerM: p.heatLossWPerM * factor, surfaceC: p.surfaceTemperatureC },
+    design: p.designSurfaceTemperatureC === null ? null : { wPerM: 0, surfaceC: p.designSurfaceTemperatureC },
+    meets: p.meets,
+  });
 }
 
 /** Air temperature spread (±K) of the range, by how well the air is known — common practice (our choice). */
@@ -213,8 +235,10 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   const worse = (a: number, b: number) => (cold ? Math.min(a, b) : Math.max(a, b));
 
   // Bare pipe.
-  const bareAvgFull = solvePreparedRun(prepared);
-  const bareAvg: SolvedState = { wPerM: bareAvgFull.heatLossWPerM, surfaceC: bareAvgFull.surfaceTemperatureC };
+  // Lean solves for the figures; the full solve (profiles, resistances) only where a full answer shows it.
+  const bareLean = solveLean(base);
+  const bareAvg: SolvedState = { wPerM: bareLean.heatLossWPerM, surfaceC: bareLean.surfaceTemperatureC };
+  const bareLatentWPerM = bareLean.latentGainWPerM;
   const bareDesign = designAir ? lean(withAir(base, designAir, [], bareEmittance)) : bareAvg;
 
   // Fittings at the run's size.
@@ -242,15 +266,16 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   let existing: { material: InsulationMaterial; thicknessM: number; jacket: string; emittance: number; layers: ResolvedLayer[] } | null = null;
   let currentIns: SolvedState | null = null;
   let currentInsDesign: SolvedState | null = null;
-  let currentInsFull: ReturnType<typeof solveResolvedRun> | null = null;
+  let currentInsRun: ResolvedRun | null = null;
   const conditionFactor = reading?.conditionFactor ?? 1;
   if (run.current.state !== 'bare') {
     const material = materialOrFail(run.current.material);
     const layers = [{ thicknessM: run.current.thicknessM, curve: material.conductivity }];
     const emittance = emittanceOf(run.current.jacket);
     existing = { material, thicknessM: run.current.thicknessM, jacket: run.current.jacket, emittance, layers };
-    currentInsFull = solveResolvedRun({ ...base, layers, surfaceEmittance: emittance }, undefined);
-    currentIns = { wPerM: currentInsFull.heatLossWPerM * conditionFactor, surfaceC: currentInsFull.surfaceTemperatureC };
+    currentInsRun = { ...base, layers, surfaceEmittance: emittance };
+    const solved = lean(currentInsRun);
+    currentIns = { wPerM: solved.wPerM * conditionFactor, surfaceC: solved.surfaceC };
     currentInsDesign = designAir ? lean(withAir(base, designAir, layers, emittance)) : currentIns;
   }
   const insW = currentIns ? currentIns.wPerM : bareAvg.wPerM;
@@ -258,15 +283,15 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   const fittingsCoveredToday = currentIns ? currentIns.wPerM : bareAvg.wPerM;
   const currentBilledW = lengthM * (bareFraction * billed(bareAvg.wPerM) + (1 - bareFraction) * billed(insW)) + fitBareEqL * billed(bareAvg.wPerM) + fitCoveredEqL * billed(fittingsCoveredToday);
   const currentWrongW = lengthM * (bareFraction * wrongWay(bareAvg.wPerM) + (1 - bareFraction) * wrongWay(insW)) + fitBareEqL * wrongWay(bareAvg.wPerM) + fitCoveredEqL * wrongWay(fittingsCoveredToday);
-  const currentLatentW = lengthM * bareFraction * bareAvgFull.latentGainWPerM + fitBareEqL * bareAvgFull.latentGainWPerM;
+  const currentLatentW = lengthM * bareFraction * bareLatentWPerM + fitBareEqL * bareLatentWPerM;
   const currentFigures = annualFigures(currentBilledW, hours, rates, fuel, latent);
   const currentHasBare = bareFraction > 0 || fitBareEqL > 0;
   const currentDesignSurfaceC = currentHasBare ? (currentInsDesign ? worse(bareDesign.surfaceC, currentInsDesign.surfaceC) : bareDesign.surfaceC) : (currentInsDesign as SolvedState).surfaceC;
   const currentAvgSurfaceC = currentHasBare || !currentIns ? bareAvg.surfaceC : currentIns.surfaceC;
 
   // Hazards today.
-  const hazards: RunWarning[] = bareFraction > 0 ? bareAvgFull.warnings.filter((w) => !w.code.startsWith('MATERIAL_') && w.code !== 'INSULATION_BELOW_CRITICAL_RADIUS') : [];
-  if (bareFraction === 0 && currentInsFull) {
+  const hazards: RunWarning[] = [];
+  if (bareFraction === 0 && currentInsRun) {
     if (burnNeed && (currentInsDesign as SolvedState).surfaceC > touchLimitC) {
       hazards.push({ code: 'SURFACE_ABOVE_TOUCH_LIMIT', message: `On the hottest day the insulated surface reaches about ${Math.round((currentInsDesign as SolvedState).surfaceC)} °C, above the ${touchLimitC} °C touch limit (ASTM C1055 basis): it can burn on contact.` });
     }
@@ -274,10 +299,10 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
       hazards.push({ code: 'SURFACE_BELOW_DEW_POINT', message: `In the wettest hour the insulated surface falls to about ${formatNumber(Math.round((currentInsDesign as SolvedState).surfaceC * 10) / 10)} °C, below the ${formatNumber(Math.round(cond.designWet.dewPointC * 10) / 10)} °C dew point: it will sweat.` });
     }
   } else if (bareFraction > 0) {
-    if (burnNeed && !hazards.some((h) => h.code === 'SURFACE_ABOVE_TOUCH_LIMIT') && bareDesign.surfaceC > touchLimitC) {
+    if (burnNeed && bareDesign.surfaceC > touchLimitC) {
       hazards.push({ code: 'SURFACE_ABOVE_TOUCH_LIMIT', message: `The bare pipe runs at about ${Math.round(bareDesign.surfaceC)} °C, above the ${touchLimitC} °C touch limit (ASTM C1055 basis): it can burn on contact.` });
     }
-    if (sweatNeed && !hazards.some((h) => h.code === 'SURFACE_BELOW_DEW_POINT') && bareDesign.surfaceC < cond.designWet.dewPointC) {
+    if (sweatNeed && bareDesign.surfaceC < cond.designWet.dewPointC) {
       hazards.push({ code: 'SURFACE_BELOW_DEW_POINT', message: `The bare pipe runs at about ${formatNumber(Math.round(bareDesign.surfaceC * 10) / 10)} °C, below the ${formatNumber(Math.round(cond.designWet.dewPointC * 10) / 10)} °C dew point of the wettest hour: it will sweat or frost.` });
     }
   }
@@ -303,48 +328,60 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   const actual = (t: number) => (ctx.stockSeries === 'inch' ? c585ActualThicknessM(base.pipeOuterDiameterM, t) : t);
   let thicknesses = stockThicknessesM(material, ctx.stockSeries);
   if (proposal.thicknessM !== undefined) thicknesses = [proposal.thicknessM];
-  const newSeries: { t: number; avg: SolvedState; design: SolvedState | null; meets: boolean }[] = [];
-  let guess: number | undefined;
-  let designGuess: number | undefined;
-  let met = false;
-  for (const t of thicknesses) {
-    const layers = [{ thicknessM: actual(t), curve: material.conductivity }];
-    const avgState = lean({ ...base, layers, surfaceEmittance: jacketEmittance }, guess);
-    guess = avgState.surfaceC;
-    let designState: SolvedState | null = null;
-    let ok = true;
-    if (designAir) {
-      if (met) ok = true;
-      else {
-        designState = lean(withAir(base, designAir, layers, jacketEmittance), designGuess);
-        designGuess = designState.surfaceC;
-        ok = meets(designState.surfaceC);
-        met = ok;
-      }
-    }
-    newSeries.push({ t, avg: avgState, design: designState, meets: ok });
-  }
+  // In a summary answer the walk stops past the least life-cycle cost; the full answer keeps every stock thickness for its chart.
+  const fitCoversPlanned = coverFittings ? uncoveredCount : 0;
+  const seriesCost = (extraPerMetre: number, factor: number) =>
+    ctx.detail === 'summary' && proposal.thicknessM === undefined
+      ? (t: number, wPerM: number) =>
+          (priceAt(t) + extraPerMetre) * lengthM + fitCoversPlanned * coverEach + pwf * annualCostOfBilledW((lengthM + fitEqL) * billed(wPerM * factor))
+      : undefined;
+  // One scratch run at average and one at design air, re-layered per thickness: a walk's solves allocate no runs.
+  const newLayer: MutableLayer = { thicknessM: 0, curve: material.conductivity };
+  const newLayers = [newLayer];
+  const avgRun: MutableRun = { ...base, layers: newLayers, surfaceEmittance: jacketEmittance };
+  const designRun: MutableRun | null = designAir ? { ...withAir(base, designAir, newLayers, jacketEmittance) } : null;
+  const newSeries = walkStockSeries({
+    thicknessesM: thicknesses,
+    runAt: (t) => {
+      newLayer.thicknessM = actual(t);
+      avgRun.layers = newLayers;
+      return avgRun;
+    },
+    designRunAt: designRun
+      ? (t) => {
+          newLayer.thicknessM = actual(t);
+          designRun.layers = newLayers;
+          return designRun;
+        }
+      : null,
+    meets,
+    ...(seriesCost(0, 1) ? { lifeCycleCost: seriesCost(0, 1) } : {}),
+  }).map(toSeriesEntry(1));
 
   // Adding a layer over what is there (insulated or damaged runs).
-  const addSeries: { t: number; avg: SolvedState; design: SolvedState | null; meets: boolean }[] = [];
+  let addSeries: SeriesEntry[] = [];
   if (existing) {
-    guess = undefined;
-    designGuess = undefined;
-    met = false;
-    for (const t of thicknesses) {
-      const layers = [...existing.layers, { thicknessM: t, curve: material.conductivity }];
-      const avgState = lean({ ...base, layers, surfaceEmittance: jacketEmittance }, guess);
-      guess = avgState.surfaceC;
-      let designState: SolvedState | null = null;
-      let ok = true;
-      if (designAir && !met) {
-        designState = lean(withAir(base, designAir, layers, jacketEmittance), designGuess);
-        designGuess = designState.surfaceC;
-        ok = meets(designState.surfaceC);
-        met = ok;
-      }
-      addSeries.push({ t, avg: { wPerM: avgState.wPerM * conditionFactor, surfaceC: avgState.surfaceC }, design: designState, meets: ok });
-    }
+    const under = existing;
+    const repairPerMetre = bareFraction > 0 ? bareFraction * installedCostPerMetre(ctx.table, base.pipeOuterDiameterM, under.thicknessM) * under.material.installedCostFactor : 0;
+    const outerLayer: MutableLayer = { thicknessM: 0, curve: material.conductivity };
+    const twoLayers: ResolvedLayer[] = [...under.layers, outerLayer];
+    addSeries = walkStockSeries({
+      thicknessesM: thicknesses,
+      runAt: (t) => {
+        outerLayer.thicknessM = t;
+        avgRun.layers = twoLayers;
+        return avgRun;
+      },
+      designRunAt: designRun
+        ? (t) => {
+            outerLayer.thicknessM = t;
+            designRun.layers = twoLayers;
+            return designRun;
+          }
+        : null,
+      meets,
+      ...(seriesCost(repairPerMetre, conditionFactor) ? { lifeCycleCost: seriesCost(repairPerMetre, conditionFactor) } : {}),
+    }).map(toSeriesEntry(conditionFactor));
   }
 
   // Options.
@@ -408,7 +445,7 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
     optionFrom('repair', { material: existing.material.id, thicknessM: existing.thicknessM, jacket: existing.jacket }, currentIns.wPerM, 0, currentIns.wPerM, fitCovers, bareFraction * lengthM, repairPrice, designC, meets(designC));
   }
   // Insulate a bare run, or replace what is there.
-  const pickBest = (series: typeof newSeries, kind: OptionKind, build: (entry: (typeof newSeries)[number]) => void) => {
+  const pickBest = (series: SeriesEntry[], kind: OptionKind, build: (entry: SeriesEntry) => void) => {
     const before = options.length;
     for (const entry of series) build(entry);
     const added = options.splice(before);
@@ -420,7 +457,7 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
     void kind;
     options.push(best);
   };
-  const designOf = (entry: (typeof newSeries)[number], index: number, series: typeof newSeries) => {
+  const designOf = (entry: SeriesEntry, index: number, series: SeriesEntry[]) => {
     if (entry.design) return entry.design.surfaceC;
     // Past the first thickness that meets the need the design surface only gets safer; report the first met.
     for (let j = index; j >= 0; j--) if (series[j]?.design) return (series[j]?.design as SolvedState).surfaceC;
@@ -513,7 +550,7 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   let proposedProfile: FaceProfile | undefined;
   let proposedSurfaceC = currentAvgSurfaceC;
   if (chosen.kind === 'leave') {
-    proposedProfile = ctx.detail === 'full' ? faceProfile(currentHasBare || !currentInsFull ? bareAvgFull : currentInsFull) : undefined;
+    proposedProfile = ctx.detail === 'full' ? faceProfile(solveResolvedRun(currentHasBare || !currentInsRun ? base : currentInsRun)) : undefined;
   } else {
     const layers: ResolvedLayer[] =
       chosen.kind === 'repair' && existing
@@ -641,7 +678,7 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
       designSurfaceTemperatureC: currentDesignSurfaceC,
       latentGainW: currentLatentW,
       wrongWayHeatW: currentWrongW,
-      ...(ctx.detail === 'full' ? { profile: faceProfile(bareFraction > 0 || !currentInsFull ? bareAvgFull : currentInsFull) } : {}),
+      ...(ctx.detail === 'full' ? { profile: faceProfile(solveResolvedRun(bareFraction > 0 || !currentInsRun ? base : currentInsRun)) } : {}),
     },
     proposed: {
       ...proposedFigures,

@@ -6,6 +6,7 @@ import { ZERO_CELSIUS_K } from './physical-constants';
 import { radiationCoefficientWPerM2K } from './radiation';
 import { brentRoot } from './root-finding';
 import { condensationFluxKgPerM2S, latentHeatOfDepositionJPerKg } from './latent-gain';
+import { dewPointFromVapourKPa } from './psychrometrics';
 
 /** One insulation layer with everything the solver needs. */
 export interface ResolvedLayer {
@@ -93,6 +94,8 @@ interface SolverState {
   fixedCombined: number | null;
   fixedConvection: number | null;
   vapourKPa: number;
+  /** Dew point of the air, °C: no vapour condenses on a surface above it. */
+  dewC: number;
   slenderFactor: number;
   air: AirProperties;
   lastConvection: number;
@@ -122,6 +125,7 @@ const state: SolverState = {
   fixedCombined: null,
   fixedConvection: null,
   vapourKPa: -1,
+  dewC: -Infinity,
   slenderFactor: 0,
   air: { kinematicViscosityM2PerS: 0, conductivityWPerMK: 0, prandtl: 0, horizontalShape: 1, verticalShape: 1, crossFlowFactor: 1, slenderB: 0, slenderC: 1 },
   lastConvection: 0,
@@ -168,7 +172,7 @@ function heatAt(surfaceC: number): number {
   st.lastRadiation = radiationCoefficientWPerM2K(st.run.surfaceEmittance, surfaceC + ZERO_CELSIUS_K, st.surroundingsK);
   const sensible = st.perimeter * (st.lastConvection * (surfaceC - st.ambientC) + st.lastRadiation * (surfaceC - st.surroundingsC));
   st.lastLatent = 0;
-  if (st.vapourKPa > 0) {
+  if (st.vapourKPa > 0 && surfaceC < st.dewC) {
     // Vapour condensing on a surface below the dew point gives up its latent heat to the line.
     const flux = condensationFluxKgPerM2S(st.lastConvection, st.air, surfaceC, st.ambientC, st.vapourKPa);
     if (flux > 0) st.lastLatent = st.perimeter * flux * latentHeatOfDepositionJPerKg(surfaceC);
@@ -230,6 +234,7 @@ function findSurface(run: ResolvedRun, guessSurfaceC: number | undefined): { sur
   st.fixedConvection = run.fixedConvectionCoefficientWPerM2K;
   st.vapourKPa =
     run.fixedSurfaceCoefficientWPerM2K === null && run.fixedConvectionCoefficientWPerM2K === null ? (run.airVapourPressureKPa ?? -1) : -1;
+  st.dewC = st.vapourKPa > 0 ? dewPointFromVapourKPa(st.vapourKPa) : Number.NEGATIVE_INFINITY;
   // Popiel's slender-cylinder parameter: 32^½ · L/D (the Ra^¼ divides it per trial).
   st.slenderFactor = Math.sqrt(32) * (run.runHeightM / surfaceDiameterM);
   st.lastRayleigh = 0;

@@ -1,7 +1,8 @@
-import { EngineError } from './errors';
+import { EngineError, invalidInput } from './errors';
+import { walkStockSeries } from './least-thickness';
 import { runInputSchema, type InsulationLayerInput, type RunInput } from './run-input';
 import { prepareRun } from './run';
-import { solveResolvedRun } from './run-solver';
+import type { ResolvedLayer } from './run-solver';
 
 /** One stock thickness tried by a search. */
 export interface ThicknessCandidate {
@@ -27,27 +28,20 @@ function searchCandidates(
   candidateThicknessesM: readonly number[],
   meets: (surfaceC: number) => boolean,
 ): { candidates: ThicknessCandidate[]; thicknessM: number | null } {
-  const candidates: ThicknessCandidate[] = [];
-  let found: number | null = null;
-  let guess: number | undefined;
-  for (const thicknessM of [...candidateThicknessesM].sort((a, b) => a - b)) {
-    const parsed = runInputSchema.safeParse({ ...input, insulation: [{ ...layer, thicknessM }] });
-    if (!parsed.success) {
-      throw new EngineError(
-        'INVALID_INPUT',
-        parsed.error.issues.map((i) => i.message).join(' '),
-        parsed.error.issues.map((i) => ({
-          path: i.path.filter((p): p is string | number => typeof p !== 'symbol'),
-          message: i.message,
-        })),
-      );
-    }
-    const solution = solveResolvedRun(prepareRun(parsed.data).resolved, guess);
-    guess = solution.surfaceTemperatureC;
-    candidates.push({ thicknessM, surfaceTemperatureC: solution.surfaceTemperatureC, heatLossWPerM: solution.heatLossWPerM });
-    if (found === null && meets(solution.surfaceTemperatureC)) found = thicknessM;
-  }
-  return { candidates, thicknessM: found };
+  const sorted = [...candidateThicknessesM].sort((a, b) => a - b);
+  // Parse once with the first thickness (the layer's checks do not depend on it), then walk the series.
+  const parsed = runInputSchema.safeParse({ ...input, insulation: [{ ...layer, thicknessM: sorted[0] }] });
+  if (!parsed.success) throw invalidInput(parsed.error);
+  const resolved = prepareRun(parsed.data).resolved;
+  const curve = (resolved.layers[0] as ResolvedLayer).curve;
+  const points = walkStockSeries({
+    thicknessesM: sorted,
+    runAt: (thicknessM) => ({ ...resolved, layers: [{ thicknessM, curve }] }),
+    designRunAt: null,
+    meets,
+  });
+  const candidates = points.map((p) => ({ thicknessM: p.thicknessM, surfaceTemperatureC: p.surfaceTemperatureC, heatLossWPerM: p.heatLossWPerM }));
+  return { candidates, thicknessM: points.find((p) => p.meets)?.thicknessM ?? null };
 }
 
 /**
@@ -74,9 +68,7 @@ export function condensationControlThickness(
   options: { readonly layer: SearchLayer; readonly candidateThicknessesM: readonly number[]; readonly marginK?: number },
 ): ThicknessSearchResult {
   const parsed = runInputSchema.safeParse(input);
-  if (!parsed.success) {
-    throw new EngineError('INVALID_INPUT', parsed.error.issues.map((i) => i.message).join(' '));
-  }
+  if (!parsed.success) throw invalidInput(parsed.error);
   const dew = prepareRun(parsed.data).dewPointC;
   if (dew === null) {
     throw new EngineError('INVALID_INPUT', 'Condensation control needs the relative humidity of the air around the run.');
