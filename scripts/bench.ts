@@ -9,17 +9,22 @@
  */
 import { execFileSync } from 'node:child_process';
 import { mkdirSync, rmSync } from 'node:fs';
+import os from 'node:os';
 import { join, resolve } from 'node:path';
 import { PerformanceObserver } from 'node:perf_hooks';
 import { pathToFileURL } from 'node:url';
 import { build } from 'esbuild';
 
 const root = resolve(import.meta.dirname, '..');
+// In the child started below (a young generation too large to collect during one call), only allocations are measured.
+const allocationChild = process.env.LAGWISE_BENCH_ALLOCATIONS === '1';
 const baselineRef = process.env.BENCH_BASELINE ?? 'e05611b';
 const work = join(root, 'node_modules', '.cache', 'lagwise-bench');
-rmSync(work, { recursive: true, force: true });
-mkdirSync(join(work, 'baseline'), { recursive: true });
-execFileSync('sh', ['-c', `git -C "${root}" archive ${baselineRef} src/engine | tar -x -C "${join(work, 'baseline')}"`]);
+if (!allocationChild) {
+  rmSync(work, { recursive: true, force: true });
+  mkdirSync(join(work, 'baseline'), { recursive: true });
+  execFileSync('sh', ['-c', `git -C "${root}" archive ${baselineRef} src/engine | tar -x -C "${join(work, 'baseline')}"`]);
+}
 
 async function bundle(entry: string, out: string): Promise<string> {
   await build({ entryPoints: [entry], bundle: true, format: 'esm', platform: 'node', target: 'node20', outfile: out, external: ['zod'], logLevel: 'error' });
@@ -31,12 +36,21 @@ type Engine = {
   estimatePlant: (input: unknown, options?: unknown) => { runs: readonly unknown[]; totals: { installedCost: number } };
 };
 
-const newPath = await bundle(join(root, 'src/engine/index.ts'), join(work, 'new.mjs'));
-const basePath = await bundle(join(work, 'baseline/src/engine/index.ts'), join(work, 'base.mjs'));
+const newPath = allocationChild ? join(work, 'new.mjs') : await bundle(join(root, 'src/engine/index.ts'), join(work, 'new.mjs'));
+const basePath = allocationChild ? join(work, 'base.mjs') : await bundle(join(work, 'baseline/src/engine/index.ts'), join(work, 'base.mjs'));
 const engines: Record<'new' | 'baseline', Engine> = {
   new: (await import(pathToFileURL(newPath).href)) as Engine,
   baseline: (await import(pathToFileURL(basePath).href)) as Engine,
 };
+
+/**
+ * CPU time of this process, ms (user + system): on a machine shared with other work, wall
+ * time counts the waits too; CPU time counts only the engine's own work.
+ */
+function cpuMs(): number {
+  const usage = process.cpuUsage();
+  return (usage.user + usage.system) / 1000;
+}
 
 function median(values: number[]): number {
   const sorted = [...values].sort((a, b) => a - b);
@@ -55,9 +69,9 @@ function microsecondsPerCall(engine: Engine, make: (i: number) => unknown, batch
   for (let i = 0; i < 20000; i++) sink += engine.solveRun(inputs[i % 64]).heatLossWPerM;
   const times: number[] = [];
   for (let b = 0; b < batches; b++) {
-    const start = performance.now();
+    const start = cpuMs();
     for (let i = 0; i < perBatch; i++) sink += engine.solveRun(inputs[i % 64]).heatLossWPerM;
-    times.push(((performance.now() - start) * 1000) / perBatch);
+    times.push(((cpuMs() - start) * 1000) / perBatch);
   }
   if (!Number.isFinite(sink)) throw new Error('non-finite result in bench');
   return median(times);
@@ -97,32 +111,61 @@ const observer = new PerformanceObserver((list) => {
 });
 observer.observe({ entryTypes: ['gc'] });
 const gc = (globalThis as { gc?: () => void }).gc;
+if (!gc) throw new Error('Run the bench with node --expose-gc (npm run bench does).');
+const tick = () => new Promise((resolve) => setTimeout(resolve, 0));
 
-function plantFigures(engine: Engine, options?: unknown): { ms: number; gcShare: number; allocatedMB: number | null } {
+interface PlantFigures {
+  ms: number;
+  gcShare: number;
+}
+
+/**
+ * Times the engines' estimatePlant (CPU time) interleaved, call by call, so a machine shared with other
+ * work slows each alike; GC time is summed from the gc performance entries of each engine's calls.
+ */
+async function plantFigures(runs: { name: string; engine: Engine; options?: unknown }[], rounds = 21): Promise<PlantFigures[]> {
   const input = plant();
-  for (let i = 0; i < 5; i++) engine.estimatePlant(input, options);
-  const times: number[] = [];
-  gcDurations.length = 0;
-  const start = performance.now();
-  for (let i = 0; i < 21; i++) {
-    const t0 = performance.now();
-    engine.estimatePlant(input, options);
-    times.push(performance.now() - t0);
-  }
-  const total = performance.now() - start;
-  const gcShare = gcDurations.reduce((a, b) => a + b, 0) / total;
-  let allocatedMB: number | null = null;
-  if (gc) {
-    const samples: number[] = [];
-    for (let i = 0; i < 5; i++) {
-      gc();
-      const before = process.memoryUsage().heapUsed;
-      engine.estimatePlant(input, options);
-      samples.push((process.memoryUsage().heapUsed - before) / 1e6);
+  for (const r of runs) for (let i = 0; i < 5; i++) r.engine.estimatePlant(input, r.options);
+  const times = runs.map(() => [] as number[]);
+  const gcTimes = runs.map(() => 0);
+  const totals = runs.map(() => 0);
+  const wall = runs.map(() => 0);
+  for (let round = 0; round < rounds; round++) {
+    for (let k = 0; k < runs.length; k++) {
+      const r = runs[k] as (typeof runs)[number];
+      await tick();
+      gcDurations.length = 0;
+      const t0 = cpuMs();
+      const w0 = performance.now();
+      r.engine.estimatePlant(input, r.options);
+      const elapsed = cpuMs() - t0;
+      wall[k] = (wall[k] as number) + performance.now() - w0;
+      await tick();
+      (times[k] as number[]).push(elapsed);
+      totals[k] = (totals[k] as number) + elapsed;
+      gcTimes[k] = (gcTimes[k] as number) + gcDurations.reduce((a, b) => a + b, 0);
     }
-    allocatedMB = median(samples);
   }
-  return { ms: median(times), gcShare, allocatedMB };
+  return runs.map((_r, k) => ({ ms: median(times[k] as number[]), gcShare: (gcTimes[k] as number) / (wall[k] as number) }));
+}
+
+/** MB allocated by one estimatePlant: heap growth after a full GC, with no collection possible in between. */
+function allocatedMB(engine: Engine, options?: unknown): number {
+  const input = plant();
+  for (let i = 0; i < 3; i++) engine.estimatePlant(input, options);
+  const samples: number[] = [];
+  for (let i = 0; i < 7; i++) {
+    (gc as () => void)();
+    const before = process.memoryUsage().heapUsed;
+    engine.estimatePlant(input, options);
+    samples.push((process.memoryUsage().heapUsed - before) / 1e6);
+  }
+  return median(samples);
+}
+
+if (allocationChild) {
+  console.log(JSON.stringify({ full: allocatedMB(engines.new, { detail: 'full' }), summary: allocatedMB(engines.new, { detail: 'summary' }), baseline: allocatedMB(engines.baseline) }));
+  process.exit(0);
 }
 
 const ratio = (a: number, b: number) => `${(a / b).toFixed(2)}×`;
@@ -130,16 +173,28 @@ const bareNew = microsecondsPerCall(engines.new, bare);
 const bareBase = microsecondsPerCall(engines.baseline, bare);
 const twoNew = microsecondsPerCall(engines.new, twoLayer);
 const twoBase = microsecondsPerCall(engines.baseline, twoLayer);
-const plantNew = plantFigures(engines.new, { detail: 'full' });
-const plantNewSummary = plantFigures(engines.new, { detail: 'summary' });
-const plantBase = plantFigures(engines.baseline);
+const [plantNew, plantNewSummary, plantBase] = (await plantFigures(
+  [
+  { name: 'full', engine: engines.new, options: { detail: 'full' } },
+  { name: 'summary', engine: engines.new, options: { detail: 'summary' } },
+  { name: 'baseline', engine: engines.baseline },
+  ],
+  41,
+)) as [PlantFigures, PlantFigures, PlantFigures];
 observer.disconnect();
 
-const mb = (x: number | null) => (x === null ? 'n/a (run with --expose-gc)' : `${x.toFixed(1)} MB`);
-console.log(`bundled engine (esbuild) vs baseline ${baselineRef}, same run, node ${process.version}`);
+const allocation = JSON.parse(
+  execFileSync(process.execPath, ['--expose-gc', '--max-semi-space-size=512', '--import', 'tsx', join(root, 'scripts/bench.ts')], {
+    env: { ...process.env, LAGWISE_BENCH_ALLOCATIONS: '1' },
+    encoding: 'utf8',
+  }).trim().split('\n').at(-1) as string,
+) as { full: number; summary: number; baseline: number };
+const mb = (x: number) => `${x.toFixed(1)} MB`;
+console.log(`bundled engine (esbuild) vs baseline ${baselineRef}, same run, node ${process.version}, load average ${os.loadavg().map((x) => x.toFixed(1)).join(' ')}`);
+console.log('times are CPU time of this process (median), so other work on the machine does not count');
 console.log(`solveRun, bare steam run:           ${bareNew.toFixed(2)} µs   baseline ${bareBase.toFixed(2)} µs   ratio ${ratio(bareNew, bareBase)}   (target ≤ 5 µs)`);
 console.log(`solveRun, two-layer insulated run:  ${twoNew.toFixed(2)} µs   baseline ${twoBase.toFixed(2)} µs   ratio ${ratio(twoNew, twoBase)}`);
 console.log(`estimatePlant, 200 runs, options + range + thickness searches, full detail: ${plantNew.ms.toFixed(1)} ms   baseline ${plantBase.ms.toFixed(1)} ms   ratio ${ratio(plantNew.ms, plantBase.ms)}   (target ≤ 20 ms)`);
 console.log(`estimatePlant, 200 runs, summary detail (what /api/estimate answers): ${plantNewSummary.ms.toFixed(1)} ms   ratio to baseline ${ratio(plantNewSummary.ms, plantBase.ms)}`);
-console.log(`allocated per 200-run plant: ${mb(plantNew.allocatedMB)} full, ${mb(plantNewSummary.allocatedMB)} summary   baseline ${mb(plantBase.allocatedMB)}`);
+console.log(`allocated per 200-run plant: ${mb(allocation.full)} full, ${mb(allocation.summary)} summary   baseline ${mb(allocation.baseline)}`);
 console.log(`GC share of plant time: ${(plantNew.gcShare * 100).toFixed(1)} % full, ${(plantNewSummary.gcShare * 100).toFixed(1)} % summary   baseline ${(plantBase.gcShare * 100).toFixed(1)} %`);

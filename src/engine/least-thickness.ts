@@ -23,9 +23,9 @@ export interface SeriesWalk {
   /** The surface need, judged at design air (or at average air without one). */
   readonly meets: (surfaceC: number) => boolean;
   /**
-   * When given, the walk stops once the need is met and this cost has risen at two
-   * thicknesses in a row: past its least, a life-cycle cost only climbs (it is convex in the
-   * stock series), so the rest need no solve.
+   * When given, the walk stops once the need is met and this cost has risen: past its
+   * least, a life-cycle cost only climbs (it is convex in the stock series), so the rest need
+   * no solve.
    */
   readonly lifeCycleCost?: (thicknessM: number, heatLossWPerM: number) => number;
 }
@@ -68,7 +68,7 @@ export function walkStockSeries(walk: SeriesWalk): SeriesPoint[] {
         best = cost;
         rises = 0;
       } else rises++;
-      if (met && rises >= 2) break;
+      if (met && rises >= 1) break;
     }
   }
   return points;

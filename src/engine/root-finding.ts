@@ -10,7 +10,8 @@ export interface RootResult {
  * (R. P. Brent, Algorithms for Minimization without Derivatives, 1973, ch. 4,
  * procedure "zero"). Inverse quadratic interpolation and secant steps, falling
  * back to bisection, so the iteration count is bounded by `maxIterations`.
- * `fa` and `fb` may be passed when already known.
+ * `fa` and `fb` may be passed when already known. With `valueTolerance`, it also stops as
+ * soon as |f| is within it (for an f whose value is itself a temperature error, say).
  */
 export function brentRoot(
   f: (x: number) => number,
@@ -20,6 +21,7 @@ export function brentRoot(
   maxIterations: number,
   fa0: number = f(a0),
   fb0: number = f(b0),
+  valueTolerance = 0,
 ): RootResult {
   let a = a0;
   let b = b0;
@@ -51,7 +53,7 @@ export function brentRoot(
     }
     const tol = 2 * Number.EPSILON * Math.abs(b) + 0.5 * tolerance;
     const m = 0.5 * (c - b);
-    if (Math.abs(m) <= tol || fb === 0) return { root: b, iterations: iteration, converged: true };
+    if (Math.abs(m) <= tol || Math.abs(fb) <= valueTolerance) return { root: b, iterations: iteration, converged: true };
     if (Math.abs(e) >= tol && Math.abs(fa) > Math.abs(fb)) {
       let p: number;
       let q: number;

@@ -611,8 +611,10 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   // Sampling terms.
   const speedDelta = 0.5;
   const emittanceDelta = 0.1;
-  const bareAtSpeed = lean({ ...base, windSpeedMPerS: avg.speedMPerS + speedDelta }, bareAvg.surfaceC).wPerM;
-  const bareAtEmittance = lean({ ...base, surfaceEmittance: Math.min(1, bareEmittance + emittanceDelta) }, bareAvg.surfaceC).wPerM;
+  // Bare pipe's sensitivities matter only where bare pipe or bare fittings remain, today or after the choice.
+  const bareMatters = currentHasBare || chosen.pipeBareFraction > 0 || chosen.fitBareW > 0;
+  const bareAtSpeed = bareMatters ? lean({ ...base, windSpeedMPerS: avg.speedMPerS + speedDelta }, bareAvg.surfaceC).wPerM : bareAvg.wPerM;
+  const bareAtEmittance = bareMatters ? lean({ ...base, surfaceEmittance: Math.min(1, bareEmittance + emittanceDelta) }, bareAvg.surfaceC).wPerM : bareAvg.wPerM;
   const rel = (x: number) => (Math.abs(bareAvg.wPerM) > 1e-9 ? (x - bareAvg.wPerM) / bareAvg.wPerM : 0);
   const tDiff = fluidC - avg.temperatureC;
   const confidence = cond.confidence;
@@ -648,7 +650,24 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
     priceSpread: typed ? CONFIDENCE_SPREADS.measured : ctx.table.illustrative ? CONFIDENCE_SPREADS.guessed : CONFIDENCE_SPREADS.estimated,
   };
 
-  const publicOptions: RunOption[] = options.map(({ pipeWPerM: _a, pipeBareFraction: _b, fitInsulatedW: _c, fitBareW: _d, perMetrePrice: _e, fixedPrice: _f, ...o }) => o);
+  const publicOptions: RunOption[] = options.map((o) => ({
+    kind: o.kind,
+    material: o.material,
+    thicknessM: o.thicknessM,
+    jacket: o.jacket,
+    lengthInsulatedM: o.lengthInsulatedM,
+    fittingCovers: o.fittingCovers,
+    installedCost: o.installedCost,
+    annualHeatGJ: o.annualHeatGJ,
+    annualCost: o.annualCost,
+    annualCo2Kg: o.annualCo2Kg,
+    annualCostSaving: o.annualCostSaving,
+    simplePaybackYears: o.simplePaybackYears,
+    lifeCycleCost: o.lifeCycleCost,
+    designSurfaceTemperatureC: o.designSurfaceTemperatureC,
+    meetsTouchLimit: o.meetsTouchLimit,
+    meetsDewPoint: o.meetsDewPoint,
+  }));
   const estimate: RunEstimate = {
     id: run.id,
     label: run.label,
@@ -670,8 +689,17 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
     pipeOuterDiameterM: base.pipeOuterDiameterM,
     fittings: { valves: run.valves, flangePairs: run.flangePairs, equivalentLengthM: fitEqL, bareEquivalentLengthM: fitBareEqL, uncoveredCount },
     bare: { heatLossWPerM: bareAvg.wPerM, surfaceTemperatureC: bareAvg.surfaceC },
+    // Spelled out rather than spread: a spread into a literal with more keys takes V8's slow path.
     current: {
-      ...currentFigures,
+      heatW: currentFigures.heatW,
+      annualHeatGJ: currentFigures.annualHeatGJ,
+      annualFuelGJ: currentFigures.annualFuelGJ,
+      annualFuelQuantity: currentFigures.annualFuelQuantity,
+      annualChillerElectricityKWh: currentFigures.annualChillerElectricityKWh,
+      annualCost: currentFigures.annualCost,
+      annualCo2Kg: currentFigures.annualCo2Kg,
+      steamKgPerHour: currentFigures.steamKgPerHour,
+      steamKgPerYear: currentFigures.steamKgPerYear,
       state,
       heatLossWPerM: currentSignedWPerM,
       surfaceTemperatureC: currentAvgSurfaceC,
@@ -681,7 +709,15 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
       ...(ctx.detail === 'full' ? { profile: faceProfile(solveResolvedRun(bareFraction > 0 || !currentInsRun ? base : currentInsRun)) } : {}),
     },
     proposed: {
-      ...proposedFigures,
+      heatW: proposedFigures.heatW,
+      annualHeatGJ: proposedFigures.annualHeatGJ,
+      annualFuelGJ: proposedFigures.annualFuelGJ,
+      annualFuelQuantity: proposedFigures.annualFuelQuantity,
+      annualChillerElectricityKWh: proposedFigures.annualChillerElectricityKWh,
+      annualCost: proposedFigures.annualCost,
+      annualCo2Kg: proposedFigures.annualCo2Kg,
+      steamKgPerHour: proposedFigures.steamKgPerHour,
+      steamKgPerYear: proposedFigures.steamKgPerYear,
       option: chosen.kind,
       material: chosen.material ?? 'none',
       thicknessM: chosen.thicknessM ?? 0,

@@ -65,6 +65,12 @@ export interface CoreSolution {
 const TWO_PI = 2 * Math.PI;
 /** Surface temperature tolerance of the root finder, K. */
 const SURFACE_TOLERANCE_K = 1e-7;
+/**
+ * The balance is met when the fluid temperature a trial surface implies is within this of
+ * the real one, K: q′ then balances through every resistance to about 1e-9 of the driving
+ * difference.
+ */
+const IMPLIED_FLUID_TOLERANCE_K = 1e-7;
 /** Bound on root-finder iterations; Brent needs about 4–10 here. */
 const MAX_ITERATIONS = 200;
 const MAX_LAYERS = 8;
@@ -267,6 +273,16 @@ function findSurface(run: ResolvedRun, guessSurfaceC: number | undefined): { sur
       // Narrow the bracket around the guess: a few K usually holds the root.
       const fg = impliedFluidMinusActual(guess);
       let step = Math.max(0.25, 0.01 * (highC - lowC));
+      // A Newton estimate of the root from the surface's own coefficients: d(implied fluid)/dT_s
+      // ≈ 1 + π·D·(1.25·h_c + h_r)·R_inside (natural convection grows as ΔT^¼). The first
+      // trial lands just past it, so Brent starts on a bracket a few hundredths of a kelvin wide.
+      const q = st.lastHeat;
+      if (Math.abs(q) > 1e-9) {
+        const insideR = (fg + fluidC - guess) / q;
+        const hSlope = st.fixedCombined !== null ? st.fixedCombined : 1.25 * st.lastConvection + st.lastRadiation;
+        const slope = 1 + st.perimeter * hSlope * insideR;
+        if (slope > 0 && Number.isFinite(slope)) step = Math.max(Math.abs(fg / slope) * 1.02, 1e-6);
+      }
       if (fg < 0) {
         a = guess;
         fa = fg;
@@ -309,6 +325,7 @@ function findSurface(run: ResolvedRun, guessSurfaceC: number | undefined): { sur
       MAX_ITERATIONS,
       fa ?? impliedFluidMinusActual(a),
       fb ?? impliedFluidMinusActual(b),
+      IMPLIED_FLUID_TOLERANCE_K,
     );
     if (!result.converged || !Number.isFinite(result.root)) {
       throw new EngineError(
