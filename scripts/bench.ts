@@ -152,9 +152,9 @@ async function plantFigures(runs: { name: string; engine: Engine; options?: unkn
 /** MB allocated by one estimatePlant: heap growth after a full GC, with no collection possible in between. */
 function allocatedMB(engine: Engine, options?: unknown): number {
   const input = plant();
-  for (let i = 0; i < 3; i++) engine.estimatePlant(input, options);
+  for (let i = 0; i < 15; i++) engine.estimatePlant(input, options);
   const samples: number[] = [];
-  for (let i = 0; i < 7; i++) {
+  for (let i = 0; i < 9; i++) {
     (gc as () => void)();
     const before = process.memoryUsage().heapUsed;
     engine.estimatePlant(input, options);

@@ -45,30 +45,35 @@ export interface ChoiceReason {
   readonly message: string;
 }
 
-/** One option weighed for a run, with the figures that decided it. */
+/** One option weighed for a run, with the figures that decided it (the rest in full detail only). */
 export interface RunOption {
   readonly kind: OptionKind;
-  /** Insulation put on (none for leave). */
-  readonly material: string | null;
-  /** Nominal thickness put on, m (for add-layer, the added layer). */
+  /** Nominal thickness put on, m (for add-layer, the added layer); null for leave. */
   readonly thicknessM: number | null;
-  readonly jacket: string | null;
-  /** Metres of pipe the work covers. */
-  readonly lengthInsulatedM: number;
-  readonly fittingCovers: number;
   readonly installedCost: number;
-  /** The year's figures of the run after this option (what the system pays for). */
-  readonly annualHeatGJ: number;
+  /** The year's cost of the run after this option (what the system pays for). */
   readonly annualCost: number;
-  readonly annualCo2Kg: number;
-  readonly annualCostSaving: number;
   readonly simplePaybackYears: number | null;
   /** Installed cost plus the present worth of the yearly cost over the horizon. */
   readonly lifeCycleCost: number;
-  /** Hottest (hot lines) or coldest (cold lines) exposed surface at design air, °C. */
-  readonly designSurfaceTemperatureC: number;
   readonly meetsTouchLimit: boolean;
   readonly meetsDewPoint: boolean;
+  /** Full detail only: insulation put on (null for leave). */
+  readonly material?: string | null;
+  /** Full detail only. */
+  readonly jacket?: string | null;
+  /** Full detail only: metres of pipe the work covers. */
+  readonly lengthInsulatedM?: number;
+  /** Full detail only. */
+  readonly fittingCovers?: number;
+  /** Full detail only. */
+  readonly annualHeatGJ?: number;
+  /** Full detail only. */
+  readonly annualCo2Kg?: number;
+  /** Full detail only. */
+  readonly annualCostSaving?: number;
+  /** Full detail only: hottest (hot lines) or coldest (cold lines) exposed surface at design air, °C. */
+  readonly designSurfaceTemperatureC?: number;
 }
 
 /** Plausible-but-unlikely input, said at the field (not a refusal). */

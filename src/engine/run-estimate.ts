@@ -385,7 +385,7 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   }
 
   // Options.
-  const options: (RunOption & { readonly pipeWPerM: number; readonly pipeBareFraction: number; readonly fitInsulatedW: number; readonly fitBareW: number; readonly perMetrePrice: number; readonly fixedPrice: number })[] = [];
+  const options: (Required<RunOption> & { readonly pipeWPerM: number; readonly pipeBareFraction: number; readonly fitInsulatedW: number; readonly fitBareW: number; readonly perMetrePrice: number; readonly fixedPrice: number })[] = [];
   const fitCovers = coverFittings ? uncoveredCount : 0;
   const optionFrom = (
     kind: OptionKind,
@@ -650,24 +650,37 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
     priceSpread: typed ? CONFIDENCE_SPREADS.measured : ctx.table.illustrative ? CONFIDENCE_SPREADS.guessed : CONFIDENCE_SPREADS.estimated,
   };
 
-  const publicOptions: RunOption[] = options.map((o) => ({
-    kind: o.kind,
-    material: o.material,
-    thicknessM: o.thicknessM,
-    jacket: o.jacket,
-    lengthInsulatedM: o.lengthInsulatedM,
-    fittingCovers: o.fittingCovers,
-    installedCost: o.installedCost,
-    annualHeatGJ: o.annualHeatGJ,
-    annualCost: o.annualCost,
-    annualCo2Kg: o.annualCo2Kg,
-    annualCostSaving: o.annualCostSaving,
-    simplePaybackYears: o.simplePaybackYears,
-    lifeCycleCost: o.lifeCycleCost,
-    designSurfaceTemperatureC: o.designSurfaceTemperatureC,
-    meetsTouchLimit: o.meetsTouchLimit,
-    meetsDewPoint: o.meetsDewPoint,
-  }));
+  const publicOptions: RunOption[] = options.map((o) =>
+    ctx.detail === 'full'
+      ? {
+          kind: o.kind,
+          thicknessM: o.thicknessM,
+          installedCost: o.installedCost,
+          annualCost: o.annualCost,
+          simplePaybackYears: o.simplePaybackYears,
+          lifeCycleCost: o.lifeCycleCost,
+          meetsTouchLimit: o.meetsTouchLimit,
+          meetsDewPoint: o.meetsDewPoint,
+          material: o.material,
+          jacket: o.jacket,
+          lengthInsulatedM: o.lengthInsulatedM,
+          fittingCovers: o.fittingCovers,
+          annualHeatGJ: o.annualHeatGJ,
+          annualCo2Kg: o.annualCo2Kg,
+          annualCostSaving: o.annualCostSaving,
+          designSurfaceTemperatureC: o.designSurfaceTemperatureC,
+        }
+      : {
+          kind: o.kind,
+          thicknessM: o.thicknessM,
+          installedCost: o.installedCost,
+          annualCost: o.annualCost,
+          simplePaybackYears: o.simplePaybackYears,
+          lifeCycleCost: o.lifeCycleCost,
+          meetsTouchLimit: o.meetsTouchLimit,
+          meetsDewPoint: o.meetsDewPoint,
+        },
+  );
   const estimate: RunEstimate = {
     id: run.id,
     label: run.label,

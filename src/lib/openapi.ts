@@ -99,7 +99,8 @@ export function openApiDocument() {
               name: 'detail',
               in: 'query',
               required: false,
-              description: '`summary` (default): the figures the result screens show. `full`: also each run’s thickness series and face profiles.',
+              description:
+                '`summary` (default): the figures the result screens show. `full`: also each run’s thickness series, face profiles and every figure of its options. Numbers in the answer carry six significant digits.',
               schema: { type: 'string', enum: ['summary', 'full'], default: 'summary' },
             },
           ],

@@ -40,7 +40,7 @@ describe('the estimate’s judgement, through /api/estimate', () => {
   });
 
   it('a run with a bare fifth is repaired on its bare metres, not re-insulated end to end', async () => {
-    const r = await estimate({ energy, runs: [{ id: 'a', label: 'Main', service: 'steam', pipe: { standard: 'ASME-B36.10M', size: '3' }, lengthM: 40, current: { state: 'damaged', bareFraction: 0.2, material: 'mineral-wool', thicknessM: 0.0508 } }] });
+    const r = await estimate({ energy, runs: [{ id: 'a', label: 'Main', service: 'steam', pipe: { standard: 'ASME-B36.10M', size: '3' }, lengthM: 40, current: { state: 'damaged', bareFraction: 0.2, material: 'mineral-wool', thicknessM: 0.0508 } }] }, '?detail=full');
     const run = r.runs[0];
     expect(run.proposed.option).toBe('repair');
     const repair = run.options.find((o: Json) => o.kind === 'repair');

@@ -68,7 +68,10 @@ describe('GET /api/openapi.json', () => {
     const doc = (await response.json()) as { openapi: string; paths: Record<string, unknown>; components: { schemas: Record<string, { properties?: Record<string, unknown> }> } };
     expect(doc.openapi).toBe('3.1.0');
     expect(Object.keys(doc.paths)).toEqual(expect.arrayContaining(['/api/estimate', '/api/assessments', '/api/health']));
-    expect(Object.keys(doc.components.schemas.PlantInput!.properties!)).toEqual(expect.arrayContaining(['energy', 'runs', 'operatingHoursPerYear']));
+    expect(Object.keys(doc.components.schemas.PlantInput!.properties!)).toEqual(expect.arrayContaining(['energy', 'runs', 'operatingHoursPerYear', 'areas', 'market']));
+    const runProperties = Object.keys((doc.components.schemas.PlantInput!.properties!.runs as { items: { properties: Record<string, unknown> } }).items.properties);
+    expect(runProperties).toEqual(expect.arrayContaining(['areaId', 'finish', 'fittings', 'measurements', 'proposed']));
+    expect(JSON.stringify(doc.paths['/api/estimate'])).toContain('"detail"');
     expect(Object.keys(doc.components.schemas.CreateAssessment!.properties!)).toEqual(expect.arrayContaining(['contact', 'consent', 'plant', 'estimate']));
   });
 });

@@ -5,6 +5,8 @@ declare module 'psychrolib' {
     IP: number;
     SetUnitSystem(units: number): void;
     GetTDewPointFromRelHum(dryBulbTemperatureC: number, relativeHumidity: number): number;
+    /** Saturation vapour pressure, Pa (SI). */
+    GetSatVapPres(dryBulbTemperatureC: number): number;
   };
   export default psychrolib;
 }
