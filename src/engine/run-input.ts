@@ -5,7 +5,7 @@ import { PIPE_MATERIAL_IDS } from './data/pipe-materials';
 import { PIPE_STANDARD_IDS } from './data/pipe-dimensions';
 import { SURFACE_IDS } from './data/surfaces';
 import { isEngineError } from './errors';
-import { formatNumber, oneOf, quantity } from './schema-helpers';
+import { formatNumber, oneOf, quantity, type RangeIssueParams } from './schema-helpers';
 import {
   SATURATION_MIN_ABSOLUTE_PRESSURE_KPA,
   STEAM_MAX_ABSOLUTE_PRESSURE_KPA,
@@ -32,9 +32,18 @@ export function fluidTemperatureSchema(label = 'Fluid temperature') {
           message: `${label} cannot be at or below absolute zero (−273.15 °C); ${formatNumber(value)} °C was given.`,
         });
       } else if (value < MIN_FLUID_TEMPERATURE_C || value > MAX_FLUID_TEMPERATURE_C) {
+        const low = value < MIN_FLUID_TEMPERATURE_C;
         ctx.addIssue({
           code: 'custom',
           message: `${label} must be between ${MIN_FLUID_TEMPERATURE_C} °C and ${MAX_FLUID_TEMPERATURE_C} °C for this estimate; ${formatNumber(value)} °C was given.`,
+          params: {
+            quantity: 'temperature',
+            limit: low ? 'min' : 'max',
+            limitSI: low ? MIN_FLUID_TEMPERATURE_C : MAX_FLUID_TEMPERATURE_C,
+            givenSI: value,
+            exclusive: false,
+            unitSI: '°C',
+          } satisfies RangeIssueParams,
         });
       }
     });

@@ -99,19 +99,20 @@ export function quantity(label: string, unit: string, options: QuantityOptions =
     })
     .superRefine((value, ctx) => {
       if (!Number.isFinite(value)) return;
-      const given = withUnit(describeInput(value), unit);
+      // Words only for a refusal: every valid number of every request passes through here.
+      const given = () => withUnit(describeInput(value), unit);
       if (min !== undefined && (options.minExclusive ? value <= min : value < min)) {
         const bound = withUnit(formatNumber(min), unit);
         ctx.addIssue({
           code: 'custom',
-          message: `${label} must be ${options.minExclusive ? 'more than' : 'at least'} ${bound}; ${given} was given.${hint}`,
+          message: `${label} must be ${options.minExclusive ? 'more than' : 'at least'} ${bound}; ${given()} was given.${hint}`,
           params: { quantity: kind, limit: 'min', limitSI: min, givenSI: value, exclusive: Boolean(options.minExclusive), unitSI: unit } satisfies RangeIssueParams,
         });
       } else if (max !== undefined && (options.maxExclusive ? value >= max : value > max)) {
         const bound = withUnit(formatNumber(max), unit);
         ctx.addIssue({
           code: 'custom',
-          message: `${label} must be ${options.maxExclusive ? 'under' : 'at most'} ${bound}; ${given} was given.${hint}`,
+          message: `${label} must be ${options.maxExclusive ? 'under' : 'at most'} ${bound}; ${given()} was given.${hint}`,
           params: { quantity: kind, limit: 'max', limitSI: max, givenSI: value, exclusive: Boolean(options.maxExclusive), unitSI: unit } satisfies RangeIssueParams,
         });
       }

@@ -73,7 +73,7 @@ function syncStore(values: unknown, step: StepId): void {
   saveDraftValues(values as Partial<DraftValues>);
   $stepsWithProblems.set(stepsWithProblems(values));
   if (STEPS_WITH_LIVE_RESULTS.includes(step)) {
-    updateLiveEstimate(validPlantInput((values as Partial<DraftValues>).estimate));
+    updateLiveEstimate(validPlantInput((values as Partial<DraftValues>).estimate, (values as Partial<DraftValues>).plant?.countryCode));
   }
 }
 

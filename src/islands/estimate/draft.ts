@@ -6,6 +6,7 @@
 import {
   FUELS,
   PIPE_STANDARDS,
+  marketForCountry,
   plantInputSchema,
   serviceDefaults,
   type FuelId,
@@ -282,14 +283,18 @@ function runForPosting(run: DraftRun): DraftRun {
   };
 }
 
-/** The PlantInput the draft describes, as POST /api/estimate takes it. */
-export function toPlantInput(estimate: PlantInput): PlantInput {
-  return withoutUndefined({ ...estimate, runs: estimate.runs.map(runForPosting) });
+/**
+ * The PlantInput the draft describes, as POST /api/estimate takes it. The plant's country
+ * sets the market (which stock thicknesses and prices apply); the display units never do.
+ */
+export function toPlantInput(estimate: PlantInput, countryCode?: string): PlantInput {
+  const market = estimate.market ?? (countryCode ? marketForCountry(countryCode) : undefined);
+  return withoutUndefined({ ...estimate, ...(market ? { market } : {}), runs: estimate.runs.map(runForPosting) });
 }
 
 /** The body of the `assessment` part: the whole draft with the estimate cleaned up. */
 export function toAssessmentInput(values: DraftValues): CreateAssessmentInput {
-  return withoutUndefined({ ...values, estimate: toPlantInput(values.estimate) });
+  return withoutUndefined({ ...values, estimate: toPlantInput(values.estimate, values.plant?.countryCode) });
 }
 
 /** Steps with at least one problem, read from the same schema the server parses with. */
@@ -302,8 +307,8 @@ export function stepsWithProblems(values: unknown): Set<StepId> {
 }
 
 /** The estimate input when the draft's estimate part is complete and valid, else null. */
-export function validPlantInput(estimate: unknown): PlantInput | null {
+export function validPlantInput(estimate: unknown, countryCode?: string): PlantInput | null {
   if (typeof estimate !== 'object' || estimate === null || !Array.isArray((estimate as PlantInput).runs)) return null;
-  const input = toPlantInput(estimate as PlantInput);
+  const input = toPlantInput(estimate as PlantInput, countryCode);
   return plantInputSchema.safeParse(input).success ? input : null;
 }
