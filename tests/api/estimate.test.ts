@@ -42,7 +42,26 @@ describe('POST /api/estimate', () => {
   it('never answers 500, whatever JSON arrives', async () => {
     const base = validSubmission().estimate;
     const mutated = fc.record({
-      path: fc.constantFrom('energy.price', 'operatingHoursPerYear', 'runs.0.lengthM', 'runs.0.steamGaugePressureKPa', 'runs.1.fluidTemperatureC', 'runs.0.pipe.size', 'runs.0.service', 'conditions.indoorAirTemperatureC', 'runs'),
+      path: fc.constantFrom(
+        'energy.price',
+        'operatingHoursPerYear',
+        'runs.0.lengthM',
+        'runs.0.steamGaugePressureKPa',
+        'runs.1.fluidTemperatureC',
+        'runs.0.pipe.size',
+        'runs.0.service',
+        'conditions.indoorAirTemperatureC',
+        'runs',
+        'market',
+        'areas',
+        'runs.0.areaId',
+        'runs.0.finish',
+        'runs.0.fittings',
+        'runs.0.measurements',
+        'runs.0.measurements.surfaceTemperatureC',
+        'runs.1.proposed.option',
+        'runs.1.proposed.price',
+      ),
       value: fc.oneof(fc.double(), fc.integer(), fc.string(), fc.boolean(), fc.constant(null), fc.array(fc.integer(), { maxLength: 3 }), fc.object({ maxDepth: 1 })),
     });
     await fc.assert(
@@ -56,7 +75,7 @@ describe('POST /api/estimate', () => {
         await response.arrayBuffer();
         return response.status < 500;
       }),
-      { numRuns: 60, seed: 20261201 },
+      { numRuns: 90, seed: 20261201 },
     );
   });
 });

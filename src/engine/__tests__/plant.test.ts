@@ -104,26 +104,29 @@ describe('plant estimate', () => {
   });
 
   it('steam lost follows the latent heat at the line pressure', () => {
-    const header = result.runs.find((r) => r.id === 'boiler-header');
-    expect(header?.latentHeatJPerKg).toBeGreaterThan(2.0e6);
-    expect(header?.current.steamKgPerHour).toBeCloseTo(((header?.current.heatW ?? 0) * 3600) / (header?.latentHeatJPerKg ?? 1), 9);
-    expect(header?.current.steamKgPerYear).toBeCloseTo((header?.current.steamKgPerHour ?? 0) * 5000, 6);
+    const header = result.runs.find((r) => r.id === 'boiler-header')!;
+    expect(header.latentHeatJPerKg).toBeGreaterThan(2.0e6);
+    expect(header.current.steamKgPerHour).toBeCloseTo((header.current.heatW * 3600) / header.latentHeatJPerKg!, 9);
+    expect(header.current.steamKgPerYear).toBeCloseTo(header.current.steamKgPerHour * 5000, 6);
     expect(result.runs.find((r) => r.id === 'glycol')?.current.steamKgPerHour).toBe(0);
   });
 
-  it('the economic thickness is the least life-cycle cost of the series, and the proposal meets every safety need', () => {
+  it('the economic thickness is the least life-cycle cost of the series, and the chosen option meets every safety need', () => {
     for (const r of result.runs) {
       const least = Math.min(...r.thicknessSeries!.map((o) => o.lifeCycleCost));
       expect(r.economicThickness?.lifeCycleCost).toBe(least);
-      if (r.personnelProtection.leastThicknessM !== null) expect(r.proposed.thicknessM).toBeGreaterThanOrEqual(r.personnelProtection.leastThicknessM);
-      if (r.condensationControl.leastThicknessM !== null) expect(r.proposed.thicknessM).toBeGreaterThanOrEqual(r.condensationControl.leastThicknessM);
-      if (r.personnelProtection.applies && r.personnelProtection.leastThicknessM !== null) expect(r.proposed.surfaceTemperatureC).toBeLessThanOrEqual(60);
+      const chosen = r.options.find((o) => o.kind === r.proposed.option)!;
+      expect(r.choice.code).not.toBe('NO_OPTION_MEETS_SAFETY');
+      expect(chosen.meetsTouchLimit && chosen.meetsDewPoint).toBe(true);
     }
-    const glycol = result.runs.find((r) => r.id === 'glycol');
-    expect(glycol?.cold).toBe(true);
-    expect(glycol?.condensationControl.applies).toBe(true);
-    expect(glycol?.proposed.surfaceTemperatureC).toBeGreaterThanOrEqual((glycol?.condensationControl.dewPointC ?? 0) + 1);
-    expect(glycol?.bare.heatLossWPerM).toBeLessThan(0);
+    const header = result.runs.find((r) => r.id === 'boiler-header')!;
+    expect(header.personnelProtection.applies).toBe(true);
+    expect(header.proposed.designSurfaceTemperatureC).toBeLessThanOrEqual(60);
+    const glycol = result.runs.find((r) => r.id === 'glycol')!;
+    expect(glycol.cold).toBe(true);
+    expect(glycol.condensationControl.applies).toBe(true);
+    expect(glycol.proposed.designSurfaceTemperatureC).toBeGreaterThanOrEqual(glycol.condensationControl.dewPointC + 1);
+    expect(glycol.bare.heatLossWPerM).toBeLessThan(0);
   });
 
   it('the range is reproducible from its seed, brackets the likely value and widens with guessed inputs', () => {

@@ -76,8 +76,9 @@ describe('safety limits', () => {
         operatingHoursPerYear: 8760,
         energy: { fuel: 'natural-gas', price, priceUnit: 'therm' },
         runs: [{ id: 'oil', label: 'Hot oil main', service: 'hot-water', fluidTemperatureC: 315.556, pipe: { standard: 'ASME-B36.10M', size: '4' }, lengthM: 50, proposed: { material: 'calcium-silicate' } }],
-      }).runs[0];
-      expect(1 - (run?.proposed.heatLossWPerM ?? 0) / (run?.bare.heatLossWPerM ?? 1)).toBeGreaterThanOrEqual(0.95);
+      }).runs[0]!;
+      expect(run.proposed.option).toBe('insulate');
+      expect(1 - run.proposed.heatLossWPerM / run.bare.heatLossWPerM).toBeGreaterThanOrEqual(0.95);
     }
   });
 
@@ -90,7 +91,9 @@ describe('safety limits', () => {
     expect(result.thicknessM).not.toBeNull();
     const i = result.candidates.findIndex((c) => c.thicknessM === result.thicknessM);
     expect(result.candidates[i]?.surfaceTemperatureC).toBeLessThanOrEqual(60);
-    if (i > 0) expect(result.candidates[i - 1]?.surfaceTemperatureC).toBeGreaterThan(60);
+    // The thinnest candidate (½ in on 1 000 kPa steam under a shiny jacket) is too hot, so there is a thinner one to check.
+    expect(i).toBeGreaterThan(0);
+    expect(result.candidates[i - 1]?.surfaceTemperatureC).toBeGreaterThan(60);
   });
 
   it('a bright metal jacket runs hotter than a painted one (low emittance sheds less heat by radiation)', () => {
