@@ -91,7 +91,8 @@ describe('the estimate wizard in a browser', () => {
       expect(problems).toEqual([]);
       await context.close();
     }
-  });
+    // Twelve axe passes over two widths: 26–40 s on a quiet machine, past 60 s on a loaded 2-core one.
+  }, 180_000);
 
   it('works by keyboard alone: a plant, its energy and a run, a run added, duplicated and removed, then the results', async () => {
     const { context, page, problems } = await openEstimate(browser);
