@@ -5,6 +5,7 @@
 import { z } from 'zod';
 import { createAssessmentSchema } from '../schemas/assessment';
 import { ENGINE_VERSION, plantInputSchema } from '../engine';
+import { leadPaths, leadSchemas } from './openapi-leads';
 import { APP_VERSION } from './site';
 
 const inputSchema = (schema: z.ZodType) => z.toJSONSchema(schema, { io: 'input', unrepresentable: 'any', target: 'draft-2020-12' });
@@ -19,6 +20,7 @@ const errorSchema = {
       properties: {
         code: { type: 'string', examples: ['VALIDATION_FAILED'] },
         message: { type: 'string', description: 'A sentence a person can act on.' },
+        details: { type: 'object', description: 'Plain data to act on, e.g. who claimed a lead first and when ({ firm, claimedAt }).' },
         issues: {
           type: 'array',
           items: {
@@ -169,12 +171,14 @@ export function openApiDocument() {
           },
         },
       },
+      ...leadPaths(),
     },
     components: {
       schemas: {
         PlantInput: inputSchema(plantInputSchema),
         CreateAssessment: inputSchema(createAssessmentSchema),
         Error: errorSchema,
+        ...leadSchemas(),
       },
     },
   };

@@ -222,3 +222,20 @@ describe('the desk API', () => {
   });
 });
 
+
+describe('the desk in /api/openapi.json', () => {
+  it('documents every lead endpoint with the schemas the server parses and answers with', async () => {
+    const doc = (await (await appFetch('/api/openapi.json')).json()) as {
+      paths: Record<string, Record<string, { parameters?: { name: string }[] }>>;
+      components: { schemas: Record<string, { properties?: Record<string, { enum?: string[] }> }> };
+    };
+    expect(Object.keys(doc.paths)).toEqual(
+      expect.arrayContaining(['/api/leads', '/api/leads/{id}', '/api/leads/{id}/claim', '/api/leads/{id}/moves', '/api/leads/{id}/release', '/api/leads/{id}/notes']),
+    );
+    expect(doc.paths['/api/leads']!.get!.parameters!.map((p) => p.name)).toEqual(
+      expect.arrayContaining(['view', 'page', 'sort', 'region', 'plantType', 'service', 'lossMin', 'spreadMax', 'runsMin', 'photos', 'maxAgeDays']),
+    );
+    expect(doc.components.schemas.MoveRequest!.properties!.to!.enum).toEqual(['in_touch', 'site_walk_booked', 'signed', 'closed']);
+    expect(Object.keys(doc.components.schemas.LeadList!.properties!)).toEqual(['view', 'items', 'page', 'pageSize', 'total', 'pageCount']);
+  });
+});
