@@ -10,6 +10,7 @@ import { getAuth } from '../../src/lib/auth';
 import { stopSender } from '../../src/lib/jobs/queue';
 import { DEMO_PASSWORD, demoAccounts, demoRegions } from './demo-people.ts';
 import { seedDemoAssessments } from './demo-assessments.ts';
+import { seedDeskDemo } from './demo-desk.ts';
 
 async function seedRegions(): Promise<Map<string, string>> {
   const db = getDb();
@@ -60,8 +61,9 @@ export async function seedDemo(): Promise<void> {
     const regionIds = await seedRegions();
     const accounts = await seedAccounts(regionIds);
     const assessments = await seedDemoAssessments();
+    const desk = await seedDeskDemo();
     console.log(
-      `[seed] demo data ready: ${regionIds.size} regions, ${accounts} new accounts, ${assessments} new assessments`,
+      `[seed] demo data ready: ${regionIds.size} regions, ${accounts} new accounts, ${assessments + desk.submitted} new assessments, ${desk.histories} desk histories played`,
     );
   } finally {
     await stopSender();

@@ -2,12 +2,13 @@ import { execFileSync } from 'node:child_process';
 import pg from 'pg';
 import { describe, expect, it } from 'vitest';
 import { demoSubmissions } from '../../scripts/seed/demo-assessments';
+import { deskDemoHistories, deskDemoLeads } from '../../scripts/seed/demo-desk';
 import { demoAccounts, demoRegions } from '../../scripts/seed/demo-people';
 import { stack } from '../support/stack';
 
 const slugs = demoRegions.map((r) => r.slug);
 const emails = demoAccounts.map((a) => a.email);
-const keys = demoSubmissions.map((s) => s.key);
+const keys = [...demoSubmissions, ...deskDemoLeads].map((s) => s.key);
 
 /** Counts only the demo's own rows, so other tests writing at the same time cannot disturb it. */
 async function demoCounts(): Promise<Record<string, number>> {
@@ -23,6 +24,8 @@ async function demoCounts(): Promise<Record<string, number>> {
       passwords: await count('select count(*) as n from account a join "user" u on u.id = a.user_id where u.email = any($1)', [emails]),
       assessments: await count('select count(*) as n from assessments where idempotency_key = any($1)', [keys]),
       runs: await count('select count(*) as n from pipe_runs r join assessments a on a.id = r.assessment_id where a.idempotency_key = any($1)', [keys]),
+      activity: await count('select count(*) as n from activity_log l join assessments a on a.id = l.assessment_id where a.idempotency_key = any($1)', [keys]),
+      profiles: await count('select count(*) as n from consultant_profiles p join "user" u on u.id = p.user_id where u.email = any($1)', [emails]),
     };
   } finally {
     await client.end();
@@ -38,12 +41,47 @@ describe('demo data', () => {
       coverage: demoAccounts.flatMap((a) => a.regions ?? []).length,
       accounts: demoAccounts.length,
       passwords: demoAccounts.length,
-      assessments: demoSubmissions.length,
-      runs: demoSubmissions.flatMap((s) => s.input.estimate.runs).length,
+      assessments: demoSubmissions.length + deskDemoLeads.length,
+      runs: [...demoSubmissions, ...deskDemoLeads].flatMap((s) => s.input.estimate.runs).length,
+      // One entry per submission, one per step of each desk history.
+      activity: keys.length + [...deskDemoLeads, ...deskDemoHistories].reduce((n, d) => n + d.steps.length, 0),
+      profiles: demoAccounts.filter((a) => a.role === 'consultant').length,
     });
 
     execFileSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], { env: process.env, stdio: 'pipe' });
 
     expect(await demoCounts()).toEqual(before);
+  });
+});
+
+describe('the demo desk', () => {
+  it('gives every demo consultant open leads in their regions and leads of their own at several stages', async () => {
+    const client = new pg.Client({ connectionString: stack.databaseUrl });
+    await client.connect();
+    try {
+      const stagesSeen = new Set<string>();
+      for (const consultant of demoAccounts.filter((a) => a.role === 'consultant')) {
+        const open = await client.query<{ n: string }>(
+          `select count(*) as n from assessments a join region_consultants rc on rc.region_id = a.region_id join "user" u on u.id = rc.user_id
+           where u.email = $1 and a.status = 'fresh' and a.idempotency_key = any($2)`,
+          [consultant.email, keys],
+        );
+        const held = await client.query<{ status: string }>(
+          `select a.status from assessments a join "user" u on u.id = a.claimed_by_user_id where u.email = $1 and a.idempotency_key = any($2)`,
+          [consultant.email, keys],
+        );
+        expect(Number(open.rows[0]!.n), `${consultant.email} open`).toBeGreaterThan(0);
+        expect(held.rows.length, `${consultant.email} held`).toBeGreaterThan(0);
+        for (const row of held.rows) stagesSeen.add(row.status);
+      }
+      expect([...stagesSeen].sort()).toEqual(['claimed', 'closed', 'in_touch', 'site_walk_booked']);
+      const released = await client.query<{ n: string }>(
+        `select count(*) as n from activity_log l join assessments a on a.id = l.assessment_id where l.action = 'lead.released' and a.status = 'fresh' and a.idempotency_key = any($1)`,
+        [keys],
+      );
+      expect(Number(released.rows[0]!.n)).toBe(1);
+    } finally {
+      await client.end();
+    }
   });
 });
