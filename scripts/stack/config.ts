@@ -10,7 +10,8 @@ import { fileURLToPath } from 'node:url';
 
 export const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
 
-export type Profile = 'demo' | 'test';
+/** `bench`: `npm run bench`'s scratch database, wiped each run like the tests'. */
+export type Profile = 'demo' | 'test' | 'bench';
 
 export interface StackConfig {
   profile: Profile;
@@ -88,6 +89,9 @@ export async function loadConfig(profile: Profile): Promise<StackConfig> {
       s3Port: portFrom('LAGWISE_S3_PORT', 4323),
       databaseName: 'lagwise',
     };
+  }
+  if (profile === 'bench') {
+    return { profile, stateDir, secrets, host: '127.0.0.1', appPort: await freePort(), pgPort: await freePort(), mailPort: await freePort(), s3Port: await freePort(), databaseName: 'lagwise_bench' };
   }
   return {
     profile,

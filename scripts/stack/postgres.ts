@@ -121,7 +121,7 @@ export function initCluster(binDir: string, config: StackConfig): void {
     "listen_addresses = '127.0.0.1'",
     `unix_socket_directories = '${dataDir}'`,
     'max_connections = 100',
-    ...(config.profile === 'test' ? ['fsync = off', 'synchronous_commit = off', 'full_page_writes = off'] : []),
+    ...(config.profile !== 'demo' ? ['fsync = off', 'synchronous_commit = off', 'full_page_writes = off'] : []),
   ];
   const conf = path.join(dataDir, 'postgresql.conf');
   writeFileSync(conf, readFileSync(conf, 'utf8') + settings.join('\n') + '\n');
@@ -144,7 +144,7 @@ export async function startPostgres(binDir: string, config: StackConfig, supervi
   const dataDir = clusterDir(config);
   const leftover = runningPostmasterPid(dataDir);
   if (leftover !== undefined) {
-    if (config.profile !== 'test') {
+    if (config.profile === 'demo') {
       throw new StackError(
         `PostgreSQL for this project is already running (pid ${leftover}, data in ${dataDir}). ` +
           'Is another `npm start` open? Stop it with Ctrl-C first, or stop the leftover with `npm run stop-db`.',

@@ -135,9 +135,29 @@ export const assessments = pgTable(
     index('assessments_status_region_idx').on(t.status, t.regionId),
     index('assessments_owner_idx').on(t.ownerUserId),
     index('assessments_claimed_by_idx').on(t.claimedByUserId),
-    // The open-leads list: fresh leads of a region, newest first (its default order).
+    // The open-leads list: fresh leads of a region, newest first (its default order), carrying
+    // every column a list row shows, so a page is read from the index alone (an index-only scan,
+    // whatever the order chosen) instead of visiting one table block per lead.
     index('assessments_open_list_idx')
-      .on(t.regionId, t.createdAt.desc(), t.id.desc())
+      .on(
+        t.regionId,
+        t.createdAt.desc(),
+        t.id.desc(),
+        t.status,
+        t.reference,
+        t.plantType,
+        t.countryCode,
+        t.postalCodeNormalised,
+        t.currency,
+        t.annualLossCost,
+        t.annualLossCostLow,
+        t.annualLossCostHigh,
+        t.annualSavingCost,
+        t.runCount,
+        t.photoCount,
+        t.hazardRunCount,
+        t.services,
+      )
       .where(sql`${t.status} = 'fresh'`),
   ],
 );

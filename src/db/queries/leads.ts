@@ -125,9 +125,16 @@ export type OpenLeadRow = Awaited<ReturnType<typeof listOpenLeads>>['rows'][numb
  */
 export async function listOpenLeads(db: Executor, filters: LeadFilters, page: LeadPage) {
   if (filters.regionIds && filters.regionIds.length === 0) return { rows: [], total: 0 };
+  const { rows, total } = openLeadsQueries(db, filters, page);
+  const [found, totals] = await Promise.all([rows, total]);
+  return { rows: found, total: totals[0]?.n ?? 0 };
+}
+
+/** The two statements of the open list (its page and its count), unexecuted: the bench explains them. */
+export function openLeadsQueries(db: Executor, filters: LeadFilters, page: LeadPage) {
   const where = and(eq(assessments.status, 'fresh'), ...filterConditions(filters));
-  const [rows, totals] = await Promise.all([
-    db
+  return {
+    rows: db
       .select(listColumns)
       .from(assessments)
       .leftJoin(regions, eq(regions.id, assessments.regionId))
@@ -135,9 +142,8 @@ export async function listOpenLeads(db: Executor, filters: LeadFilters, page: Le
       .orderBy(...orderOf(page))
       .limit(page.pageSize)
       .offset((page.page - 1) * page.pageSize),
-    db.select({ n: count() }).from(assessments).where(where),
-  ]);
-  return { rows, total: totals[0]?.n ?? 0 };
+    total: db.select({ n: count() }).from(assessments).where(where),
+  };
 }
 
 export type MyLeadRow = Awaited<ReturnType<typeof listHeldLeads>>['rows'][number];

@@ -1,0 +1,2 @@
+DROP INDEX "assessments_open_list_idx";--> statement-breakpoint
+CREATE INDEX "assessments_open_list_idx" ON "assessments" USING btree ("region_id","created_at" DESC NULLS LAST,"id" DESC NULLS LAST,"status","reference","plant_type","country_code","postal_code_normalised","currency","annual_loss_cost","annual_loss_cost_low","annual_loss_cost_high","annual_saving_cost","run_count","photo_count","hazard_run_count","services") WHERE "assessments"."status" = 'fresh';
