@@ -150,7 +150,7 @@ describe('the desk, in a browser', () => {
       const values = losses.map((t) => Number(t.replace(/[^\d.]/g, '')));
       expect(values).toEqual([...values].sort((a, b) => b - a));
       await page.locator('summary', { hasText: 'Narrow the list' }).click();
-      await page.getByLabel('Photos').selectOption('yes');
+      await page.locator('select[name=photos]').selectOption('yes');
       await page.getByRole('button', { name: 'Show leads' }).click();
       await page.getByText('No open leads match').waitFor();
       expect(page.url()).toContain('photos=yes');
