@@ -7,6 +7,7 @@ import { closeDb, getDb } from './db/client';
 import { describeForLog } from './db/errors';
 import { pruneRateLimits } from './db/queries/rate-limits';
 import { jobHandlers } from './lib/jobs/handlers';
+import { jobNames, STALE_CHECK_CRON } from './lib/jobs/names';
 
 const connectionString = process.env.DATABASE_URL;
 if (!connectionString) {
@@ -15,7 +16,8 @@ if (!connectionString) {
 }
 
 const pollingIntervalSeconds = Math.max(0.5, Number(process.env.LAGWISE_JOB_POLL_SECONDS ?? 2));
-const boss = new PgBoss({ connectionString, max: 4, migrate: false, schedule: false });
+// `schedule`: this worker also sends the cron jobs (pg-boss makes sure only one worker sends each).
+const boss = new PgBoss({ connectionString, max: 4, migrate: false, schedule: true });
 boss.on('error', (error) => console.error('[worker]', error.message));
 await boss.start();
 
@@ -34,6 +36,8 @@ for (const [queue, handle] of Object.entries(jobHandlers)) {
     boss.notifyWorker(workerId);
   });
 }
+await boss.schedule(jobNames.checkStaleLeads, STALE_CHECK_CRON, {}, { tz: 'UTC' });
+
 console.log(`[worker] working ${Object.keys(jobHandlers).join(', ')} (polling every ${pollingIntervalSeconds} s)`);
 
 // Rate-limit windows older than a day count for nothing; clear them out hourly.

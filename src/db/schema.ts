@@ -41,6 +41,8 @@ export const regions = pgTable('regions', {
   slug: text('slug').notNull().unique(),
   name: text('name').notNull(),
   countryCode: char('country_code', { length: 2 }).notNull(),
+  /** Set when the admin retires the region: it keeps its history but routes nothing. */
+  retiredAt: timestamp('retired_at', { withTimezone: true }),
   ...timestamps,
 });
 
@@ -232,12 +234,59 @@ export const activityLog = pgTable(
     id: bigserial('id', { mode: 'number' }).primaryKey(),
     assessmentId: uuid('assessment_id').references(() => assessments.id, { onDelete: 'set null' }),
     actorUserId: uuid('actor_user_id').references(() => user.id, { onDelete: 'set null' }),
+    /** The person the entry is about when that is not the actor (the consultant invited, assigned, deactivated). */
+    subjectUserId: uuid('subject_user_id').references(() => user.id, { onDelete: 'set null' }),
     action: text('action').notNull(),
     detail: jsonb('detail').notNull().default({}),
     createdAt: timestamps.createdAt,
   },
-  (t) => [index('activity_log_assessment_idx').on(t.assessmentId, t.createdAt)],
+  (t) => [
+    index('activity_log_assessment_idx').on(t.assessmentId, t.createdAt),
+    // The admin's log pages newest first, whole or by person or by action.
+    index('activity_log_recent_idx').on(t.createdAt.desc(), t.id.desc()),
+    index('activity_log_actor_idx').on(t.actorUserId, t.createdAt.desc()),
+    index('activity_log_subject_idx').on(t.subjectUserId, t.createdAt.desc()),
+    index('activity_log_action_idx').on(t.action, t.createdAt.desc()),
+  ],
 );
+
+/**
+ * An admin's invitation to a consultant: the link's token is kept only as its SHA-256, works
+ * once (`acceptedAt`), until `expiresAt`, and not after it is withdrawn. Resending replaces the
+ * token, so an older link stops working. The account it is for exists from the invitation on,
+ * without a password, so regions and a cap can be set before the consultant first signs in.
+ */
+export const consultantInvitations = pgTable(
+  'consultant_invitations',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    userId: uuid('user_id').references(() => user.id, { onDelete: 'set null' }),
+    email: text('email').notNull(),
+    tokenHash: text('token_hash').notNull().unique(),
+    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+    invitedByUserId: uuid('invited_by_user_id').references(() => user.id, { onDelete: 'set null' }),
+    sentCount: integer('sent_count').notNull().default(1),
+    lastSentAt: timestamp('last_sent_at', { withTimezone: true }).notNull().defaultNow(),
+    acceptedAt: timestamp('accepted_at', { withTimezone: true }),
+    withdrawnAt: timestamp('withdrawn_at', { withTimezone: true }),
+    createdAt: timestamps.createdAt,
+  },
+  (t) => [
+    index('consultant_invitations_user_idx').on(t.userId),
+    // At most one invitation waiting per account.
+    uniqueIndex('consultant_invitations_pending_key')
+      .on(t.userId)
+      .where(sql`${t.acceptedAt} is null and ${t.withdrawnAt} is null`),
+  ],
+);
+
+/** The admin's settings, one row per key; src/lib/admin/settings.ts knows each key's shape and default. */
+export const appSettings = pgTable('app_settings', {
+  key: text('key').primaryKey(),
+  value: jsonb('value').notNull(),
+  updatedByUserId: uuid('updated_by_user_id').references(() => user.id, { onDelete: 'set null' }),
+  updatedAt: timestamps.updatedAt,
+});
 
 /** Fixed-window counters for rate limits that must hold across servers. */
 export const rateLimitWindows = pgTable(
@@ -295,3 +344,4 @@ export type PipeRun = typeof pipeRuns.$inferSelect;
 export type Attachment = typeof attachments.$inferSelect;
 export type ActivityEntry = typeof activityLog.$inferSelect;
 export type ConsultantProfile = typeof consultantProfiles.$inferSelect;
+export type ConsultantInvitation = typeof consultantInvitations.$inferSelect;

@@ -10,6 +10,7 @@ import * as schema from '../db/schema';
 import { accessControl, roles } from './permissions';
 import { appBaseUrl, trustedOrigins } from './site';
 import { deliverSignInLink } from './sign-in-links';
+import { deliverPasswordReset, notePasswordReset, PASSWORD_RESET_SECONDS } from './password-reset';
 
 /** A sign-in link is good for a day: owners open confirmation mail hours later. */
 const SIGN_IN_LINK_SECONDS = 24 * 60 * 60;
@@ -29,7 +30,15 @@ export function authOptions() {
       // Consultants are invited by an admin; nobody signs themselves up with a password.
       disableSignUp: true,
       minPasswordLength: 10,
+      maxPasswordLength: 128,
+      // A forgotten password: better-auth mints the token, our pages and the mail queue carry it.
+      resetPasswordTokenExpiresIn: PASSWORD_RESET_SECONDS,
+      revokeSessionsOnPasswordReset: true,
+      sendResetPassword: async ({ user, token }) => deliverPasswordReset({ email: user.email, name: user.name, token }),
+      onPasswordReset: async ({ user }) => notePasswordReset(user.id),
     },
+    // Reset links are kept as their hash, like sign-in links, so the table gives nothing away.
+    verification: { storeIdentifier: { default: 'plain', overrides: { 'reset-password:': 'hashed' } } },
     session: { expiresIn: 60 * 60 * 24 * 14, updateAge: 60 * 60 * 24 },
     advanced: {
       database: { generateId: 'uuid' },

@@ -8,6 +8,10 @@ export type DomainErrorCode =
   | 'CLAIM_LIMIT'
   | 'INVALID_TRANSITION'
   | 'CONFLICT'
+  /** Input that parsed but names something that does not fit (a prefix of another country, an unknown id in a list). */
+  | 'INVALID_INPUT'
+  /** A link that worked once and no longer does (used, expired or withdrawn). */
+  | 'GONE'
   | 'UNPROCESSABLE'
   | 'RATE_LIMITED'
   | 'FORBIDDEN'

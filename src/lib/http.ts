@@ -29,6 +29,8 @@ const domainStatus: Record<DomainErrorCode, number> = {
   CLAIM_LIMIT: 409,
   INVALID_TRANSITION: 409,
   CONFLICT: 409,
+  GONE: 410,
+  INVALID_INPUT: 400,
   UNPROCESSABLE: 422,
   RATE_LIMITED: 429,
   FORBIDDEN: 403,

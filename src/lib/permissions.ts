@@ -12,6 +12,7 @@ export const statements = {
   region: ['list', 'manage'],
   consultant: ['list', 'manage'],
   activity: ['read-all'],
+  settings: ['manage'],
 } as const;
 
 export const accessControl = createAccessControl(statements);
@@ -33,6 +34,7 @@ export const adminRole = accessControl.newRole({
   region: ['list', 'manage'],
   consultant: ['list', 'manage'],
   activity: ['read-all'],
+  settings: ['manage'],
 });
 
 export const roles = { owner: ownerRole, consultant: consultantRole, admin: adminRole } as const;

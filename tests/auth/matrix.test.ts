@@ -57,6 +57,11 @@ const deskApi = ({ inRegion, out = inRegion, admin = inRegion }: { inRegion: num
 });
 
 const lead = (w: World) => w.held.id;
+/** Admin pages: only admins; consultants and owners are shown the refusal page, the signed-out sent to sign in. */
+const adminPage = (): Expected => ({ ...deskPage(), consultantIn: 403, consultantOut: 403 });
+/** Admin API: `status` for admins; 401 signed out (and banned), 403 for everyone else. */
+const adminApi = (status: number): Expected => ({ ...deskApi({ inRegion: 403 }), admin: status });
+const nobody = '00000000-0000-4000-8000-000000000000';
 
 // One line per route and method. Sign-out comes last: it ends each persona's session.
 const rows: Row[] = [
@@ -92,6 +97,35 @@ const rows: Row[] = [
   },
   { method: 'POST', route: '/api/leads/[id]/release', path: (w) => `/api/leads/${lead(w)}/release`, body: { json: {} }, expect: deskApi({ inRegion: 400, out: 404 }) },
   { method: 'POST', route: '/api/leads/[id]/notes', path: (w) => `/api/leads/${lead(w)}/notes`, body: { json: { text: '' } }, expect: deskApi({ inRegion: 400, out: 404 }) },
+  ...(['/admin/consultants', '/admin/regions', '/admin/attention', '/admin/coverage', '/admin/activity'] as const).map(
+    (route): Row => ({ method: 'GET', route, path: () => route, expect: adminPage() }),
+  ),
+  { method: 'GET', route: '/join', path: () => '/join', expect: all(404) },
+  { method: 'GET', route: '/forgot-password', path: () => '/forgot-password', expect: all(200) },
+  { method: 'GET', route: '/set-password', path: () => '/set-password', expect: all(410) },
+  { method: 'POST', route: '/api/invitations/accept', path: () => '/api/invitations/accept', body: { json: {} }, expect: all(400) },
+  { method: 'POST', route: '/api/password/forgot', path: () => '/api/password/forgot', body: { json: {} }, expect: all(400) },
+  { method: 'POST', route: '/api/password/reset', path: () => '/api/password/reset', body: { json: {} }, expect: all(400) },
+  { method: 'GET', route: '/api/admin/consultants', path: () => '/api/admin/consultants', expect: adminApi(200) },
+  { method: 'POST', route: '/api/admin/consultants', path: () => '/api/admin/consultants', body: { json: {} }, expect: adminApi(400) },
+  { method: 'GET', route: '/api/admin/consultants/[id]', path: () => `/api/admin/consultants/${nobody}`, expect: adminApi(404) },
+  { method: 'PATCH', route: '/api/admin/consultants/[id]', path: () => `/api/admin/consultants/${nobody}`, body: { json: {} }, expect: adminApi(400) },
+  { method: 'POST', route: '/api/admin/consultants/[id]/deactivate', path: () => `/api/admin/consultants/${nobody}/deactivate`, body: { json: {} }, expect: adminApi(400) },
+  { method: 'POST', route: '/api/admin/consultants/[id]/reactivate', path: () => `/api/admin/consultants/${nobody}/reactivate`, body: { json: {} }, expect: adminApi(404) },
+  { method: 'POST', route: '/api/admin/consultants/[id]/invitation', path: () => `/api/admin/consultants/${nobody}/invitation`, body: { json: {} }, expect: adminApi(404) },
+  { method: 'DELETE', route: '/api/admin/consultants/[id]/invitation', path: () => `/api/admin/consultants/${nobody}/invitation`, expect: adminApi(404) },
+  { method: 'GET', route: '/api/admin/regions', path: () => '/api/admin/regions', expect: adminApi(200) },
+  { method: 'POST', route: '/api/admin/regions', path: () => '/api/admin/regions', body: { json: {} }, expect: adminApi(400) },
+  { method: 'PATCH', route: '/api/admin/regions/[id]', path: () => `/api/admin/regions/${nobody}`, body: { json: {} }, expect: adminApi(400) },
+  { method: 'DELETE', route: '/api/admin/regions/[id]', path: () => `/api/admin/regions/${nobody}`, expect: adminApi(404) },
+  { method: 'POST', route: '/api/admin/leads/[id]/assign', path: (w) => `/api/admin/leads/${lead(w)}/assign`, body: { json: {} }, expect: adminApi(400) },
+  { method: 'POST', route: '/api/admin/leads/[id]/junk', path: (w) => `/api/admin/leads/${lead(w)}/junk`, body: { json: {} }, expect: adminApi(400) },
+  { method: 'POST', route: '/api/admin/leads/[id]/restore', path: (w) => `/api/admin/leads/${lead(w)}/restore`, body: { json: {} }, expect: adminApi(400) },
+  { method: 'GET', route: '/api/admin/attention', path: () => '/api/admin/attention', expect: adminApi(200) },
+  { method: 'GET', route: '/api/admin/funnel', path: () => '/api/admin/funnel', expect: adminApi(200) },
+  { method: 'GET', route: '/api/admin/activity', path: () => '/api/admin/activity', expect: adminApi(200) },
+  { method: 'GET', route: '/api/admin/settings', path: () => '/api/admin/settings', expect: adminApi(200) },
+  { method: 'PATCH', route: '/api/admin/settings', path: () => '/api/admin/settings', body: { json: {} }, expect: adminApi(400) },
   { method: 'POST', route: '/api/sign-out', path: () => '/api/sign-out', body: { form: {} }, expect: all(303) },
 ];
 
@@ -157,7 +191,7 @@ describe('the authorisation matrix', () => {
         const response = await send(row, persona);
         const text = await response.text();
         expect(response.status, text.slice(0, 300)).toBe(row.expect[persona]);
-        if (row.route.startsWith('/api/leads') && response.status >= 400) {
+        if ((row.route.startsWith('/api/leads') || row.route.startsWith('/api/admin')) && response.status >= 400) {
           expect(response.headers.get('content-type')).toContain('application/json');
           expect(JSON.parse(text)).toMatchObject({ error: { code: expect.any(String), message: expect.any(String) } });
         }

@@ -55,13 +55,21 @@ export async function insertAssessment(
   }
 }
 
+/** One activity entry; `subjectUserId` names the person it is about when that is not the actor. */
 export async function recordActivity(
   db: Executor,
-  entry: { assessmentId?: string | null; actorUserId?: string | null; action: string; detail?: Record<string, unknown> },
+  entry: {
+    assessmentId?: string | null;
+    actorUserId?: string | null;
+    subjectUserId?: string | null;
+    action: string;
+    detail?: Record<string, unknown>;
+  },
 ): Promise<void> {
   await db.insert(activityLog).values({
     assessmentId: entry.assessmentId ?? null,
     actorUserId: entry.actorUserId ?? null,
+    subjectUserId: entry.subjectUserId ?? null,
     action: entry.action,
     detail: entry.detail ?? {},
   });

@@ -26,3 +26,16 @@ export async function findRegionForPostalCode(
     .limit(1);
   return match ?? null;
 }
+
+/**
+ * Serialises routing against region changes: a submission routes under the shared lock, a
+ * change of prefixes holds it alone, so no assessment is routed against prefixes that are being
+ * changed and then missed by the change's re-routing of unrouted assessments.
+ */
+export async function lockRouting(db: Executor, mode: 'share' | 'exclusive'): Promise<void> {
+  await db.execute(
+    mode === 'share'
+      ? sql`select pg_advisory_xact_lock_shared(hashtext('lagwise:routing'))`
+      : sql`select pg_advisory_xact_lock(hashtext('lagwise:routing'))`,
+  );
+}

@@ -6,7 +6,7 @@
 import { randomUUID } from 'node:crypto';
 import { findAssessmentByIdempotencyKey, insertAssessment, recordActivity, type AssessmentSummary } from '../../db/queries/assessments';
 import { hitRateLimit } from '../../db/queries/rate-limits';
-import { findRegionForPostalCode } from '../../db/queries/regions';
+import { findRegionForPostalCode, lockRouting } from '../../db/queries/regions';
 import { findOrCreateOwner } from '../../db/queries/users';
 import { getDb } from '../../db/client';
 import { describeForLog, isUniqueViolation } from '../../db/errors';
@@ -109,6 +109,7 @@ export async function submitAssessment(
       stored.push({ key, photo: item });
     }
     const assessment = await inTransaction(async (tx, sqlRunner) => {
+      if (!spam) await lockRouting(tx, 'share');
       const region = spam ? null : await findRegionForPostalCode(tx, input.plant.countryCode, postal.routingKey);
       const status: AssessmentStatus = spam ? 'junk' : region ? 'fresh' : 'unrouted';
       const ownerUserId = spam ? null : await findOrCreateOwner(tx, input.contact.email, input.contact.name);
@@ -158,6 +159,7 @@ export async function submitAssessment(
       if (!spam) {
         await enqueue(jobNames.confirmSubmission, { assessmentId }, { sqlRunner });
         if (region) await enqueue(jobNames.alertConsultants, { assessmentId }, { sqlRunner });
+        else await enqueue(jobNames.alertAdminsUnrouted, { assessmentId }, { sqlRunner });
       }
       return { id: assessmentId, reference, status, regionName: region?.regionName ?? null };
     });

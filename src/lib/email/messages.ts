@@ -10,6 +10,24 @@ export type OutgoingEmail =
       props: { signInUrl: string; assessmentId: string };
     }
   | { template: 'consultant-alert'; to: string; props: { assessmentId: string; consultantName: string; reopened?: boolean } }
-  | { template: 'consultant-introduction'; to: string; props: { assessmentId: string; consultantUserId: string } };
+  | { template: 'consultant-introduction'; to: string; props: { assessmentId: string; consultantUserId: string } }
+  | {
+      template: 'consultant-invitation';
+      to: string;
+      props: { name: string; firm: string; invitedByName: string; inviteUrl: string; expiresAt: string };
+    }
+  | { template: 'password-reset'; to: string; props: { name: string; resetUrl: string } }
+  | { template: 'admin-unrouted'; to: string; props: { adminName: string; assessmentId: string } }
+  | {
+      template: 'admin-stale-digest';
+      to: string;
+      props: {
+        adminName: string;
+        staleAfterHours: number;
+        leads: { id: string; reference: string; regionName: string; waitingHours: number }[];
+        more: number;
+      };
+    }
+  | { template: 'lead-assigned'; to: string; props: { assessmentId: string; consultantName: string; reason: string } };
 
 export type EmailTemplateName = OutgoingEmail['template'];

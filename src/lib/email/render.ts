@@ -17,6 +17,20 @@ import { ConsultantIntroduction, consultantIntroductionSubject } from './templat
 import { findConsultantProfile } from '../../db/queries/leads';
 import { SignInLink, signInLinkSubject } from './templates/SignInLink';
 import { SubmissionConfirmation, submissionConfirmationSubject } from './templates/SubmissionConfirmation';
+import {
+  ConsultantInvitation,
+  consultantInvitationSubject,
+  LeadAssigned,
+  leadAssignedSubject,
+  PasswordReset,
+  passwordResetSubject,
+  StaleDigest,
+  staleDigestSubject,
+  UnroutedNotice,
+  unroutedNoticeSubject,
+} from './templates/TeamMail';
+
+const longDate = new Intl.DateTimeFormat('en-GB', { dateStyle: 'long', timeZone: 'UTC' });
 
 async function both(element: ReactElement): Promise<{ html: string; text: string }> {
   const [html, text] = await Promise.all([render(element), render(element, { plainText: true })]);
@@ -97,6 +111,46 @@ export async function renderEmail(email: OutgoingEmail): Promise<RenderedEmail> 
         assessmentUrl: `${appBaseUrl()}/my/assessments/${found.id}`,
       };
       return { to: email.to, subject: consultantIntroductionSubject(props), ...(await both(createElement(ConsultantIntroduction, props))) };
+    }
+    case 'consultant-invitation': {
+      const props = { ...email.props, expiresOn: longDate.format(new Date(email.props.expiresAt)) };
+      return { to: email.to, subject: consultantInvitationSubject(props), ...(await both(createElement(ConsultantInvitation, props))) };
+    }
+    case 'password-reset':
+      return { to: email.to, subject: passwordResetSubject, ...(await both(createElement(PasswordReset, email.props))) };
+    case 'admin-unrouted': {
+      const { found, result, money } = await loadAssessment(email.props.assessmentId);
+      const props = {
+        adminName: email.props.adminName,
+        reference: found.reference,
+        plantType: plantTypeName(found.plantType),
+        place: `${found.postalCode} (${found.countryCode})`,
+        annualCost: money(result.totals.current.annualCost),
+        leadUrl: `${appBaseUrl()}/desk/leads/${found.id}`,
+        attentionUrl: `${appBaseUrl()}/admin/attention`,
+      };
+      return { to: email.to, subject: unroutedNoticeSubject(props), ...(await both(createElement(UnroutedNotice, props))) };
+    }
+    case 'admin-stale-digest': {
+      const props = {
+        ...email.props,
+        leads: email.props.leads.map((lead) => ({ ...lead, url: `${appBaseUrl()}/desk/leads/${lead.id}` })),
+        attentionUrl: `${appBaseUrl()}/admin/attention`,
+      };
+      return { to: email.to, subject: staleDigestSubject(props), ...(await both(createElement(StaleDigest, props))) };
+    }
+    case 'lead-assigned': {
+      const found = await getAssessmentForMail(getDb(), email.props.assessmentId);
+      if (!found) throw new NothingToSend(`assessment ${email.props.assessmentId} no longer exists`);
+      const props = {
+        consultantName: email.props.consultantName,
+        reference: found.reference,
+        plantType: plantTypeName(found.plantType),
+        area: `${found.postalCodeNormalised.slice(0, 3)} (${found.countryCode})`,
+        reason: email.props.reason,
+        leadUrl: `${appBaseUrl()}/desk/leads/${found.id}`,
+      };
+      return { to: email.to, subject: leadAssignedSubject(props), ...(await both(createElement(LeadAssigned, props))) };
     }
   }
 }

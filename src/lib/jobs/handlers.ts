@@ -8,6 +8,7 @@ import { getAuth } from '../auth';
 import { sendEmail } from '../email/mailer';
 import { NothingToSend, renderEmail } from '../email/render';
 import type { SubmissionLinkMetadata } from '../sign-in-links';
+import { alertAdminsOfUnrouted, mailStaleDigest } from '../admin/oversight';
 import { enqueue, jobNames } from './queue';
 import type { JobName, JobPayloads } from './names';
 
@@ -72,4 +73,17 @@ export const jobHandlers: { [N in JobName]: Handler<N> } = {
         }
       });
     }),
+
+  'admins-unrouted-alert': (job) =>
+    unlessGone(async () => {
+      const assessment = await getAssessmentForMail(getDb(), job.data.assessmentId);
+      if (!assessment) throw new NothingToSend(`assessment ${job.data.assessmentId} no longer exists`);
+      // Routed or handed over before the job ran: nobody needs telling.
+      if (assessment.status !== 'unrouted') return;
+      await alertAdminsOfUnrouted(assessment.id);
+    }),
+
+  'stale-leads-check': async () => {
+    await mailStaleDigest();
+  },
 };

@@ -8,6 +8,10 @@ export const jobNames = {
   confirmSubmission: 'submission-confirm',
   /** Tell the consultants of the assessment's region that a lead is waiting. */
   alertConsultants: 'consultants-alert',
+  /** Tell every admin that an assessment matched no region. */
+  alertAdminsUnrouted: 'admins-unrouted-alert',
+  /** Hourly (pg-boss schedule): mail the admins about stale open leads, at most once a day. */
+  checkStaleLeads: 'stale-leads-check',
 } as const;
 
 export type JobName = (typeof jobNames)[keyof typeof jobNames];
@@ -20,7 +24,12 @@ export interface JobPayloads {
    * to tell (the one who handed it back).
    */
   'consultants-alert': { assessmentId: string; reopened?: boolean; excludeUserIds?: string[] };
+  'admins-unrouted-alert': { assessmentId: string };
+  'stale-leads-check': Record<string, never>;
 }
+
+/** When the stale-lead check runs (cron, UTC): hourly, so a digest goes out soon after leads go stale. */
+export const STALE_CHECK_CRON = '17 * * * *';
 
 /** Retry policy per queue: mail keeps trying for hours so an outage delays and loses nothing. */
 export function queuePolicies(retryDelaySeconds: number) {
@@ -29,5 +38,8 @@ export function queuePolicies(retryDelaySeconds: number) {
     'email-send': patient,
     'submission-confirm': patient,
     'consultants-alert': patient,
+    'admins-unrouted-alert': patient,
+    // The next hour's run does the same work; no need to retry for long.
+    'stale-leads-check': { retryLimit: 2, retryDelay: retryDelaySeconds, retryBackoff: true, retentionDays: 2 },
   } satisfies Record<JobName, object>;
 }

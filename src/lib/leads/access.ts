@@ -6,7 +6,7 @@
  * code, the photos and the timeline go only to the consultant holding the lead and to admins —
  * never to the open list, in HTML or JSON.
  */
-import { and, eq, inArray, notInArray, or, sql, type SQL } from 'drizzle-orm';
+import { and, eq, inArray, ne, notInArray, or, sql, type SQL } from 'drizzle-orm';
 import { assessments, regionConsultants, type AssessmentStatus } from '../../db/schema';
 import { can } from '../guards';
 import type { SessionUser } from '../session';
@@ -29,9 +29,10 @@ const hiddenFromRegions: AssessmentStatus[] = ['unrouted', 'junk'];
 export function reachCondition(viewer: LeadViewer): SQL | undefined {
   if (viewer.reach === 'all') return undefined;
   const myRegions = sql`(select ${regionConsultants.regionId} from ${regionConsultants} where ${regionConsultants.userId} = ${viewer.userId})`;
-  return or(
-    eq(assessments.claimedByUserId, viewer.userId),
-    and(notInArray(assessments.status, hiddenFromRegions), inArray(assessments.regionId, myRegions)),
+  // Junk leaves every consultant's view, even the one who held it.
+  return and(
+    ne(assessments.status, 'junk'),
+    or(eq(assessments.claimedByUserId, viewer.userId), and(notInArray(assessments.status, hiddenFromRegions), inArray(assessments.regionId, myRegions))),
   );
 }
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { normalisePostalCode, prefixCandidates } from './postal-code';
+import { checkRegionPrefix, countryCodes, normalisePostalCode, postalFormats, prefixCandidates } from './postal-code';
 
 describe('normalisePostalCode', () => {
   it.each([
@@ -29,5 +29,55 @@ describe('normalisePostalCode', () => {
 describe('prefixCandidates', () => {
   it('lists every leading part, longest first', () => {
     expect(prefixCandidates('L2R7K6')).toEqual(['L2R7K6', 'L2R7K', 'L2R7', 'L2R', 'L2', 'L']);
+  });
+});
+
+describe('checkRegionPrefix', () => {
+  it.each([
+    ['US', '9', '9'],
+    ['US', '972', '972'],
+    ['US', '97214', '97214'],
+    ['CA', 'l', 'L'],
+    ['CA', 'L2R', 'L2R'],
+    ['CA', 'l2r 7k', 'L2R7K'],
+    ['GB', 'hg', 'HG'],
+    ['GB', 'HG1', 'HG1'],
+    ['GB', 'SW1A', 'SW1A'],
+    ['GB', 'M1', 'M1'],
+    ['IE', 'D02', 'D02'],
+    ['NL', '3511 L', '3511L'],
+    ['NZ', '90', '90'],
+    ['SE', '411', '411'],
+  ] as const)('%s "%s" is the start of a routed code (%s)', (country, typed, prefix) => {
+    expect(checkRegionPrefix(country, typed)).toEqual({ ok: true, prefix });
+  });
+
+  it.each([
+    ['US', '97X', /1 to 5 digits of a ZIP code/],
+    ['US', '972145', /1 to 5 digits/], // US routes on the 5-digit ZIP: a sixth digit can never match
+    ['CA', 'D2', /letter then digit then letter/], // D is not a first letter Canada Post uses
+    ['CA', 'L2RR', /letter then digit then letter/],
+    ['GB', '12', /postcode area or district/],
+    ['GB', 'HGX', /postcode area or district/],
+    ['NL', '0351', /first not 0/],
+    ['NZ', '90123', /1 to 4 digits/],
+    ['DE', '', /1 to 5 digits/],
+  ] as const)('refuses %s "%s", naming the prefix and the format', (country, typed, format) => {
+    const checked = checkRegionPrefix(country, typed);
+    expect(checked).toEqual({ ok: false, message: expect.stringContaining(`"${typed.trim() || '(empty)'}"`) });
+    expect((checked as { message: string }).message).toMatch(format);
+  });
+
+  it('every leading part of every example code is a valid prefix of its country', () => {
+    for (const code of countryCodes) {
+      for (const example of postalFormats[code].example.split(' or ')) {
+        const normalised = normalisePostalCode(code, example);
+        expect(normalised.ok, `${code} ${example}`).toBe(true);
+        const key = normalised.ok ? normalised.routingKey : '';
+        for (let n = 1; n <= key.length; n += 1) {
+          expect(checkRegionPrefix(code, key.slice(0, n)).ok, `${code} ${key.slice(0, n)}`).toBe(true);
+        }
+      }
+    }
   });
 });
