@@ -5,6 +5,7 @@
 import { z } from 'zod';
 import { createAssessmentSchema } from '../schemas/assessment';
 import { ENGINE_VERSION, plantInputSchema } from '../engine';
+import { adminPaths, adminSchemas } from './openapi-admin';
 import { leadPaths, leadSchemas } from './openapi-leads';
 import { APP_VERSION } from './site';
 
@@ -172,11 +173,13 @@ export function openApiDocument() {
         },
       },
       ...leadPaths(),
+      ...adminPaths(),
     },
     components: {
       schemas: {
         PlantInput: inputSchema(plantInputSchema),
         CreateAssessment: inputSchema(createAssessmentSchema),
+        ...adminSchemas(),
         Error: errorSchema,
         ...leadSchemas(),
       },
