@@ -28,6 +28,8 @@ export interface DemoAccount {
   /** The consultant's phone, told to owners when they claim a lead. */
   phone?: string;
   regions?: string[];
+  /** Open leads they may hold at once (the default otherwise). */
+  cap?: number;
 }
 
 export const demoAccounts: DemoAccount[] = [
@@ -79,6 +81,15 @@ export const demoAccounts: DemoAccount[] = [
     company: 'Baird Insulation Services',
     phone: '+44 1423 555 019',
     regions: ['dales-and-moors'],
+  },
+  {
+    email: 'ottilie@marsh-finch.example',
+    name: 'Ottilie Marsh',
+    role: 'consultant',
+    company: 'Marsh & Finch Insulation',
+    phone: '+1 802 555 0148',
+    regions: ['green-mountain-upper-hudson'],
+    cap: 2,
   },
 ];
 

@@ -11,6 +11,7 @@ import { stopSender } from '../../src/lib/jobs/queue';
 import { DEMO_PASSWORD, demoAccounts, demoRegions } from './demo-people.ts';
 import { seedDemoAssessments } from './demo-assessments.ts';
 import { seedDeskDemo } from './demo-desk.ts';
+import { seedAdminDemo } from './demo-admin.ts';
 
 async function seedRegions(): Promise<Map<string, string>> {
   const db = getDb();
@@ -45,7 +46,7 @@ async function seedAccounts(regionIds: Map<string, string>): Promise<number> {
       created += 1;
     }
     if (account.role === 'consultant' && account.company) {
-      await upsertConsultantProfile(db, { userId: existing.id, firm: account.company, phone: account.phone ?? null });
+      await upsertConsultantProfile(db, { userId: existing.id, firm: account.company, phone: account.phone ?? null, ...(account.cap ? { openClaimCap: account.cap } : {}) });
     }
     for (const slug of account.regions ?? []) {
       const regionId = regionIds.get(slug);
@@ -60,7 +61,7 @@ export async function seedDemo(): Promise<void> {
   try {
     const regionIds = await seedRegions();
     const accounts = await seedAccounts(regionIds);
-    const assessments = await seedDemoAssessments();
+    const assessments = (await seedDemoAssessments()) + (await seedAdminDemo());
     const desk = await seedDeskDemo();
     console.log(
       `[seed] demo data ready: ${regionIds.size} regions, ${accounts} new accounts, ${assessments + desk.submitted} new assessments, ${desk.histories} desk histories played`,

@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { demoSubmissions } from '../../scripts/seed/demo-assessments';
 import { deskDemoHistories, deskDemoLeads } from '../../scripts/seed/demo-desk';
 import { demoAccounts, demoRegions } from '../../scripts/seed/demo-people';
+import { AT_CAP_CONSULTANT } from '../../scripts/seed/demo-admin';
 import { stack } from '../support/stack';
 
 const slugs = demoRegions.map((r) => r.slug);
@@ -51,6 +52,26 @@ describe('demo data', () => {
     execFileSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], { env: process.env, stdio: 'pipe' });
 
     expect(await demoCounts()).toEqual(before);
+  });
+
+  it('gives the admin something to act on: an unrouted assessment, a stale open lead, a consultant at their cap', async () => {
+    const client = new pg.Client({ connectionString: stack.databaseUrl });
+    await client.connect();
+    try {
+      const status = async (key: string) =>
+        (await client.query<{ status: string; waited: boolean }>(`select status, updated_at < now() - interval '48 hours' as waited from assessments where idempotency_key = $1`, [key])).rows[0];
+      expect(await status('demo-admin-kettle-butte-creamery')).toEqual({ status: 'unrouted', waited: false });
+      expect(await status('demo-admin-larchmere-smokehouse')).toEqual({ status: 'fresh', waited: true });
+      const load = await client.query<{ held: string; cap: number }>(
+        `select (select count(*) from assessments a where a.claimed_by_user_id = u.id and a.status in ('claimed','in_touch','site_walk_booked')) as held, p.open_claim_cap as cap
+         from "user" u join consultant_profiles p on p.user_id = u.id where u.email = $1`,
+        [AT_CAP_CONSULTANT],
+      );
+      expect(Number(load.rows[0]!.held)).toBe(load.rows[0]!.cap);
+      expect(load.rows[0]!.cap).toBe(2);
+    } finally {
+      await client.end();
+    }
   });
 });
 
