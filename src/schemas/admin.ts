@@ -7,7 +7,6 @@ import { z } from 'zod';
 import { assessmentStatuses } from '../db/statuses';
 import { checkRegionPrefix, countryCodes, isCountryCode } from '../lib/routing/postal-code';
 import { heldStages } from '../lib/leads/pipeline';
-import { settingShapes } from '../lib/admin/settings';
 
 const isoDate = z.string().describe('ISO 8601 date and time');
 const id = z.uuid();
@@ -412,6 +411,15 @@ export const activityResponseSchema = z.object({
 export type ActivityResponse = z.infer<typeof activityResponseSchema>;
 
 // ——— Settings ———
+
+/** Each setting's shape; src/lib/admin/settings.ts gives the defaults and reads stored values through these. */
+export const settingShapes = {
+  staleAfterHours: z
+    .number({ error: 'Give the hours as a number.' })
+    .int({ error: 'Give whole hours.' })
+    .min(1, { error: 'A lead goes stale after at least 1 hour.' })
+    .max(24 * 60, { error: 'Keep it to 60 days (1,440 hours) or less.' }),
+} as const;
 
 export const settingsSchema = z.object({ staleAfterHours: settingShapes.staleAfterHours });
 export const updateSettingsRequestSchema = settingsSchema

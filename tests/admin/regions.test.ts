@@ -101,6 +101,7 @@ describe('regions in the admin area', () => {
     expect(made.body.routing.routedFromUnrouted).toBeGreaterThanOrEqual(1);
     expect(made.body.routing.leads.map((l) => l.reference)).toContain(before.reference);
     expect(await lead(before.id)).toEqual({ status: 'fresh', regionId: made.body.region.id });
+    expect(made.body.region).toMatchObject({ openLeads: 1, staleLeads: 0, heldLeads: 0 });
     await waitForMessages(consultant, (m) => m.some((x) => x.subject.includes(before.reference)));
     const routed = await getDb().select().from(activityLog).where(eq(activityLog.assessmentId, before.id));
     expect(routed.map((r) => r.action)).toContain('lead.routed');

@@ -235,3 +235,17 @@ export async function claimsPerConsultant(db: Executor, days: number) {
     group by 1`);
   return new Map(result.rows.filter((r) => r.user_id).map((r) => [r.user_id, Number(r.n)]));
 }
+
+/** The newest open and held leads of each live region, a few per region, for the coverage boards. */
+export async function recentRegionLeads(db: Executor, perRegion: number) {
+  const result = await db.execute<{ id: string; reference: string; status: string; region_id: string; holder_name: string | null }>(sql`
+    select id, reference, status, region_id, holder_name from (
+      select a.id, a.reference, a.status::text as status, a.region_id, u.name as holder_name,
+        row_number() over (partition by a.region_id order by a.updated_at desc, a.id) as n
+      from ${assessments} a
+      join ${regions} r on r.id = a.region_id and r.retired_at is null
+      left join "user" u on u.id = a.claimed_by_user_id
+      where a.status in ('fresh', 'claimed', 'in_touch', 'site_walk_booked', 'report_sent')
+    ) ranked where n <= ${perRegion}`);
+  return result.rows;
+}

@@ -6,6 +6,12 @@ import { and, asc, eq, inArray, isNull, like, ne, or, sql } from 'drizzle-orm';
 import type { Executor } from '../client';
 import { consultantProfiles, regionConsultants, regionPostalPrefixes, regions, user } from '../schema';
 
+/**
+ * The region row's id inside the count subqueries. Written out in full: in a select from one
+ * table Drizzle leaves its columns unqualified, and a bare "id" would mean the assessment's.
+ */
+const regionIdRef = sql.raw('"regions"."id"');
+
 /** Every region (live first, then retired) with its open, stale and held lead counts. */
 export async function listRegionRows(db: Executor, staleAfterHours: number, regionIds?: string[]) {
   if (regionIds && regionIds.length === 0) return [];
@@ -16,9 +22,9 @@ export async function listRegionRows(db: Executor, staleAfterHours: number, regi
       name: regions.name,
       countryCode: regions.countryCode,
       retiredAt: regions.retiredAt,
-      openLeads: sql<number>`(select count(*) from assessments a where a.region_id = ${regions.id} and a.status = 'fresh')`.mapWith(Number),
-      staleLeads: sql<number>`(select count(*) from assessments a where a.region_id = ${regions.id} and a.status = 'fresh' and a.updated_at < now() - make_interval(hours => ${staleAfterHours}))`.mapWith(Number),
-      heldLeads: sql<number>`(select count(*) from assessments a where a.region_id = ${regions.id} and a.status in ('claimed','in_touch','site_walk_booked','report_sent'))`.mapWith(Number),
+      openLeads: sql<number>`(select count(*) from assessments a where a.region_id = ${regionIdRef} and a.status = 'fresh')`.mapWith(Number),
+      staleLeads: sql<number>`(select count(*) from assessments a where a.region_id = ${regionIdRef} and a.status = 'fresh' and a.updated_at < now() - make_interval(hours => ${staleAfterHours}))`.mapWith(Number),
+      heldLeads: sql<number>`(select count(*) from assessments a where a.region_id = ${regionIdRef} and a.status in ('claimed','in_touch','site_walk_booked','report_sent'))`.mapWith(Number),
     })
     .from(regions)
     .where(regionIds ? inArray(regions.id, regionIds) : undefined)

@@ -14,9 +14,11 @@ import {
   listAttentionLeads,
   listConsultantLoads,
   listStaleLeads,
+  recentRegionLeads,
   unroutedByStart,
 } from '../../db/queries/oversight';
 import { listPrefixRows } from '../../db/queries/region-admin';
+import type { AssessmentStatus } from '../../db/statuses';
 import { inTransaction } from '../../db/transaction';
 import type { ActivityQuery, ActivityResponse, AttentionResponse, FunnelResponse, RegionView } from '../../schemas/admin';
 import { funnelSteps } from '../../schemas/admin';
@@ -136,7 +138,11 @@ export interface CoverageCountry {
 }
 
 export interface Coverage {
-  regions: (RegionView & { consultantLoads: { id: string; name: string; firm: string | null; openClaims: number; cap: number; claims30d: number; active: boolean }[] })[];
+  regions: (RegionView & {
+    consultantLoads: { id: string; name: string; firm: string | null; openClaims: number; cap: number; claims30d: number; active: boolean }[];
+    /** The newest open and held leads, a few of them. */
+    leads: { id: string; reference: string; status: AssessmentStatus; holderName: string | null }[];
+  })[];
   countries: CoverageCountry[];
   staleAfterHours: number;
 }
@@ -150,13 +156,14 @@ const DIGITS = '0123456789'.split('');
  * covers, and where unrouted assessments sit.
  */
 export async function getCoverage(db: Executor = getDb()): Promise<Coverage> {
-  const [{ staleAfterHours }, regions, prefixes, loads, claims, unrouted] = await Promise.all([
+  const [{ staleAfterHours }, regions, prefixes, loads, claims, unrouted, recent] = await Promise.all([
     readSettings(db),
     listRegions(db),
     listPrefixRows(db),
     listConsultantLoads(db),
     claimsPerConsultant(db, 30),
     unroutedByStart(db),
+    recentRegionLeads(db, 6),
   ]);
   const live = regions.filter((r) => !r.retiredAt);
   const loadById = new Map(loads.map((l) => [l.id, l]));
@@ -169,6 +176,9 @@ export async function getCoverage(db: Executor = getDb()): Promise<Coverage> {
         const load = loadById.get(c.id);
         return { id: c.id, name: c.name, firm: c.firm, openClaims: load?.openClaims ?? 0, cap: load?.cap ?? 0, claims30d: claims.get(c.id) ?? 0, active: Boolean(load) };
       }),
+      leads: recent
+        .filter((l) => l.region_id === region.id)
+        .map((l) => ({ id: l.id, reference: l.reference, status: l.status as AssessmentStatus, holderName: l.holder_name })),
     })),
     countries: countries.map((countryCode) => {
       const own = prefixes.filter((p) => p.countryCode === countryCode);

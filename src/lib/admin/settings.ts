@@ -2,23 +2,17 @@
  * The admin's settings: each key with its shape and default in one place. Stored values are
  * read through the same schema, so a value written by an older version falls back to the default.
  */
-import { z } from 'zod';
+import type { z } from 'zod';
 import type { Executor } from '../../db/client';
 import { recordActivity } from '../../db/queries/assessments';
 import { readSettingValues, writeSettingValue } from '../../db/queries/settings';
 import { inTransaction } from '../../db/transaction';
 import type { SessionUser } from '../session';
+import { settingShapes } from '../../schemas/admin';
 
 /** An open lead nobody has claimed for this long needs a person (the attention list, the daily mail). */
 export const DEFAULT_STALE_AFTER_HOURS = 48;
 
-export const settingShapes = {
-  staleAfterHours: z
-    .number({ error: 'Give the hours as a number.' })
-    .int({ error: 'Give whole hours.' })
-    .min(1, { error: 'A lead goes stale after at least 1 hour.' })
-    .max(24 * 60, { error: 'Keep it to 60 days (1,440 hours) or less.' }),
-} as const;
 
 export type Settings = { [K in keyof typeof settingShapes]: z.output<(typeof settingShapes)[K]> };
 
