@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import pg from 'pg';
 import { afterAll, describe, expect, it } from 'vitest';
+import { jobNames, queuePolicies, STALE_CHECK_CRON } from '../../src/lib/jobs/names';
 import { stack } from '../support/stack';
 
 describe('migrations', () => {
@@ -32,7 +33,11 @@ describe('migrations', () => {
         expect.arrayContaining(['regions', 'region_postal_prefixes', 'assessments', 'pipe_runs', 'activity_log', 'user', 'session']),
       );
       const queues = await client.query<{ name: string }>('select name from pgboss.queue order by name');
-      expect(queues.rows.map((r) => r.name)).toEqual(['consultants-alert', 'email-send', 'submission-confirm']);
+      // pg-boss keeps queues of its own (__pgboss__…) for its cron; ours are the ones names.ts declares.
+      expect(queues.rows.map((r) => r.name).filter((name) => !name.startsWith('__pgboss__'))).toEqual(Object.keys(queuePolicies(1)).sort());
+      // The worker schedules the hourly check of stale leads when it starts.
+      const schedules = await client.query<{ name: string; cron: string }>('select name, cron from pgboss.schedule');
+      expect(schedules.rows).toContainEqual({ name: jobNames.checkStaleLeads, cron: STALE_CHECK_CRON });
     } finally {
       await client.end();
     }
