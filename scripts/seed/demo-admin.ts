@@ -75,6 +75,11 @@ const atCap = [
   }),
 ];
 
+/** Every assessment this part of the demo stores (the seed test counts them). */
+export const adminDemoSubmissions = [unrouted, stale, ...atCap];
+/** Claims this part of the demo makes: each of the at-cap consultant's leads. */
+export const adminDemoClaims = atCap.length;
+
 async function submit(entry: { key: string; input: CreateAssessmentInput }) {
   return submitAssessment(createAssessmentSchema.parse(entry.input), [], { idempotencyKey: entry.key, clientAddress: 'demo-seed' });
 }

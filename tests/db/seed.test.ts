@@ -4,12 +4,12 @@ import { describe, expect, it } from 'vitest';
 import { demoSubmissions } from '../../scripts/seed/demo-assessments';
 import { deskDemoHistories, deskDemoLeads } from '../../scripts/seed/demo-desk';
 import { demoAccounts, demoRegions } from '../../scripts/seed/demo-people';
-import { AT_CAP_CONSULTANT } from '../../scripts/seed/demo-admin';
+import { adminDemoClaims, adminDemoSubmissions, AT_CAP_CONSULTANT } from '../../scripts/seed/demo-admin';
 import { stack } from '../support/stack';
 
 const slugs = demoRegions.map((r) => r.slug);
 const emails = demoAccounts.map((a) => a.email);
-const keys = [...demoSubmissions, ...deskDemoLeads].map((s) => s.key);
+const keys = [...demoSubmissions, ...deskDemoLeads, ...adminDemoSubmissions].map((s) => s.key);
 
 /** Counts only the demo's own rows, so other tests writing at the same time cannot disturb it. */
 async function demoCounts(): Promise<Record<string, number>> {
@@ -42,10 +42,10 @@ describe('demo data', () => {
       coverage: demoAccounts.flatMap((a) => a.regions ?? []).length,
       accounts: demoAccounts.length,
       passwords: demoAccounts.length,
-      assessments: demoSubmissions.length + deskDemoLeads.length,
-      runs: [...demoSubmissions, ...deskDemoLeads].flatMap((s) => s.input.estimate.runs).length,
-      // One entry per submission, one per step of each desk history.
-      activity: keys.length + [...deskDemoLeads, ...deskDemoHistories].reduce((n, d) => n + d.steps.length, 0),
+      assessments: demoSubmissions.length + deskDemoLeads.length + adminDemoSubmissions.length,
+      runs: [...demoSubmissions, ...deskDemoLeads, ...adminDemoSubmissions].flatMap((s) => s.input.estimate.runs).length,
+      // One entry per submission, one per step of each desk history, one per claim of the consultant at their cap.
+      activity: keys.length + [...deskDemoLeads, ...deskDemoHistories].reduce((n, d) => n + d.steps.length, 0) + adminDemoClaims,
       profiles: demoAccounts.filter((a) => a.role === 'consultant').length,
     });
 
