@@ -3,13 +3,12 @@
  * success with the typed body, or to a failure carrying the status, the error code and
  * each issue with its field path — so a 4xx never throws into a component.
  */
-import type { PlantInput, PlantResult } from '../engine';
+import type { PlantInput } from '../engine';
+import type { ApiIssue } from '../schemas/api-error';
+import type { SubmitAssessmentAnswer, SubmittedAssessment } from '../schemas/assessment-answer';
+import type { EstimateAnswer } from '../schemas/estimate';
 
-/** One field-level problem, as every 400 lists them: `{ path: 'runs.2.lengthM', message }`. */
-export interface ApiIssue {
-  readonly path: string;
-  readonly message: string;
-}
+export type { ApiIssue, EstimateAnswer, SubmitAssessmentAnswer, SubmittedAssessment };
 
 export interface ApiSuccess<T> {
   readonly ok: true;
@@ -31,38 +30,6 @@ export interface ApiFailure {
 
 export type ApiResult<T> = ApiSuccess<T> | ApiFailure;
 
-/** The answer of POST /api/estimate. */
-export interface EstimateResponse {
-  readonly engineVersion: string;
-  readonly result: PlantResult;
-}
-
-/** The stored assessment as POST /api/assessments answers it. */
-export interface SubmittedAssessment {
-  readonly id: string;
-  readonly reference: string;
-  readonly status: string;
-  /** The region whose consultants were alerted; null when no region covers the postal code. */
-  readonly regionName: string | null;
-}
-
-export interface SubmitAssessmentResponse {
-  readonly assessment: SubmittedAssessment;
-}
-
-function isRecord(value: unknown): value is Record<string, unknown> {
-  return typeof value === 'object' && value !== null;
-}
-
-function issuesOf(value: unknown): ApiIssue[] {
-  if (!Array.isArray(value)) return [];
-  return value.flatMap((issue) =>
-    isRecord(issue) && typeof issue.path === 'string' && typeof issue.message === 'string'
-      ? [{ path: issue.path, message: issue.message }]
-      : [],
-  );
-}
-
 function fallbackMessage(status: number): string {
   if (status === 429) return 'Too many requests in a short time; wait a minute and try again.';
   if (status === 413) return 'What you sent is too large; send fewer or smaller photos.';
@@ -70,8 +37,26 @@ function fallbackMessage(status: number): string {
   return 'The request was refused.';
 }
 
-/** One request to our API, resolved to a typed success or a failure with its issues (shared by ./desk-client). */
-export async function send<T>(url: string, init: RequestInit, isBody: (body: unknown) => body is T): Promise<ApiResult<T>> {
+const NO_ANSWER: ApiFailure = {
+  ok: false,
+  status: 0,
+  code: 'NETWORK',
+  message: 'No answer from the server: check the connection and try again. Nothing you entered was lost.',
+  issues: [],
+};
+
+/** What parses an answer: a zod schema (classic or mini) declared in src/schemas. */
+export interface AnswerSchema<T> {
+  safeParse(value: unknown): { success: true; data: T } | { success: false };
+}
+
+/**
+ * One request to our API (shared by ./desk-client), resolved to a success with the answer as
+ * parsed by the schema that declares it (src/schemas), or to a failure with its issues. The
+ * schema may be given as a loader: the estimate's schemas are imported when the first answer
+ * arrives — nothing needs them before — so they stay out of the page's first load.
+ */
+export async function send<T>(url: string, init: RequestInit, answerSchema: AnswerSchema<T> | (() => Promise<AnswerSchema<T>>)): Promise<ApiResult<T>> {
   let response: Response;
   try {
     response = await fetch(url, { credentials: 'same-origin', ...init });
@@ -79,13 +64,7 @@ export async function send<T>(url: string, init: RequestInit, isBody: (body: unk
     if (error instanceof DOMException && error.name === 'AbortError') {
       return { ok: false, status: 0, code: 'ABORTED', message: 'The request was cancelled.', issues: [] };
     }
-    return {
-      ok: false,
-      status: 0,
-      code: 'NETWORK',
-      message: 'No answer from the server: check the connection and try again. Nothing you entered was lost.',
-      issues: [],
-    };
+    return NO_ANSWER;
   }
   let body: unknown = null;
   try {
@@ -96,8 +75,12 @@ export async function send<T>(url: string, init: RequestInit, isBody: (body: unk
     }
     body = null;
   }
+  // A dropped connection can also stop a schema's own file from arriving: that is no answer either.
   if (response.ok) {
-    if (isBody(body)) return { ok: true, status: response.status, data: body };
+    const schema = typeof answerSchema === 'function' ? await answerSchema().catch(() => null) : answerSchema;
+    if (!schema) return NO_ANSWER;
+    const parsed = schema.safeParse(body);
+    if (parsed.success) return { ok: true, status: response.status, data: parsed.data };
     return {
       ok: false,
       status: response.status,
@@ -106,32 +89,21 @@ export async function send<T>(url: string, init: RequestInit, isBody: (body: unk
       issues: [],
     };
   }
-  const error = isRecord(body) && isRecord(body.error) ? body.error : undefined;
+  const errors = await import('../schemas/api-error').catch(() => null);
+  if (!errors) return NO_ANSWER;
+  // A proxy's HTML error page or an empty body still yields a sentence for the person.
+  const error = errors.apiErrorSchema.safeParse(body);
   return {
     ok: false,
     status: response.status,
-    code: typeof error?.code === 'string' ? error.code : `HTTP_${response.status}`,
-    message: typeof error?.message === 'string' ? error.message : fallbackMessage(response.status),
-    issues: issuesOf(error?.issues),
+    code: error.success ? error.data.error.code : `HTTP_${response.status}`,
+    message: error.success ? error.data.error.message : fallbackMessage(response.status),
+    issues: error.success ? (error.data.error.issues ?? []) : [],
   };
 }
 
-function isEstimateResponse(body: unknown): body is EstimateResponse {
-  return isRecord(body) && typeof body.engineVersion === 'string' && isRecord(body.result) && Array.isArray(body.result.runs);
-}
-
-function isSubmitResponse(body: unknown): body is SubmitAssessmentResponse {
-  return (
-    isRecord(body) &&
-    isRecord(body.assessment) &&
-    typeof body.assessment.id === 'string' &&
-    typeof body.assessment.reference === 'string' &&
-    (typeof body.assessment.regionName === 'string' || body.assessment.regionName === null)
-  );
-}
-
 /** The estimate of a plant; nothing is stored. Pass a signal to abort a stale request. */
-export function requestEstimate(input: PlantInput, signal?: AbortSignal): Promise<ApiResult<EstimateResponse>> {
+export function requestEstimate(input: PlantInput, signal?: AbortSignal): Promise<ApiResult<EstimateAnswer>> {
   // The results step draws face profiles and thickness series, so it asks for the full answer.
   return send(
     '/api/estimate?detail=full',
@@ -141,7 +113,7 @@ export function requestEstimate(input: PlantInput, signal?: AbortSignal): Promis
       body: JSON.stringify(input),
       ...(signal ? { signal } : {}),
     },
-    isEstimateResponse,
+    () => import('../schemas/estimate').then((m) => m.estimateAnswerSchema),
   );
 }
 
@@ -149,11 +121,11 @@ export function requestEstimate(input: PlantInput, signal?: AbortSignal): Promis
  * Submits an assessment as multipart/form-data (part `assessment` = the JSON, photos as
  * `photos.<runId>`). The same idempotency key sent twice stores one assessment.
  */
-export function submitAssessment(form: FormData, idempotencyKey: string): Promise<ApiResult<SubmitAssessmentResponse>> {
+export function submitAssessment(form: FormData, idempotencyKey: string): Promise<ApiResult<SubmitAssessmentAnswer>> {
   return send(
     '/api/assessments',
     { method: 'POST', headers: { 'idempotency-key': idempotencyKey, accept: 'application/json' }, body: form },
-    isSubmitResponse,
+    () => import('../schemas/assessment-answer').then((m) => m.submitAssessmentAnswerSchema),
   );
 }
 

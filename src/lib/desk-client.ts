@@ -21,28 +21,23 @@ function jsonPost(body: unknown): RequestInit {
   return { method: 'POST', headers: { 'content-type': 'application/json', accept: 'application/json' }, body: JSON.stringify(body) };
 }
 
-const parsesWith =
-  <T>(schema: { safeParse: (value: unknown) => { success: boolean } }) =>
-  (body: unknown): body is T =>
-    schema.safeParse(body).success;
-
 /** One page of leads; `search` is the query string the desk's filters make (view, page, sort, filters). */
 export function fetchLeads(search: string, signal?: AbortSignal): Promise<ApiResult<LeadListResponse>> {
-  return send(`/api/leads?${search}`, { headers: { accept: 'application/json' }, ...(signal ? { signal } : {}) }, parsesWith<LeadListResponse>(leadListResponseSchema));
+  return send(`/api/leads?${search}`, { headers: { accept: 'application/json' }, ...(signal ? { signal } : {}) }, leadListResponseSchema);
 }
 
 export function claimLead(leadId: string): Promise<ApiResult<z.infer<typeof claimResponseSchema>>> {
-  return send(`/api/leads/${encodeURIComponent(leadId)}/claim`, jsonPost({}), parsesWith(claimResponseSchema));
+  return send(`/api/leads/${encodeURIComponent(leadId)}/claim`, jsonPost({}), claimResponseSchema);
 }
 
 export function moveLead(leadId: string, move: z.input<typeof moveRequestSchema>): Promise<ApiResult<z.infer<typeof moveResponseSchema>>> {
-  return send(`/api/leads/${encodeURIComponent(leadId)}/moves`, jsonPost(move), parsesWith(moveResponseSchema));
+  return send(`/api/leads/${encodeURIComponent(leadId)}/moves`, jsonPost(move), moveResponseSchema);
 }
 
 export function releaseLead(leadId: string, release: z.input<typeof releaseRequestSchema>): Promise<ApiResult<z.infer<typeof releaseResponseSchema>>> {
-  return send(`/api/leads/${encodeURIComponent(leadId)}/release`, jsonPost(release), parsesWith(releaseResponseSchema));
+  return send(`/api/leads/${encodeURIComponent(leadId)}/release`, jsonPost(release), releaseResponseSchema);
 }
 
 export function addLeadNote(leadId: string, note: z.input<typeof noteRequestSchema>): Promise<ApiResult<z.infer<typeof noteResponseSchema>>> {
-  return send(`/api/leads/${encodeURIComponent(leadId)}/notes`, jsonPost(note), parsesWith(noteResponseSchema));
+  return send(`/api/leads/${encodeURIComponent(leadId)}/notes`, jsonPost(note), noteResponseSchema);
 }

@@ -7,21 +7,12 @@ import type { APIContext, APIRoute } from 'astro';
 import { z } from 'zod';
 import { isEngineError, type RangeIssueParams } from '../engine';
 import { describeForLog, isDatabaseUnavailable } from '../db/errors';
+import type { ApiErrorBody, ApiIssue } from '../schemas/api-error';
+import type { Frozen } from '../schemas/mirror';
 import { DomainError, type DomainErrorCode } from './errors';
 
-export interface Issue {
-  path: string;
-  message: string;
-  /**
-   * For a range issue: the kind of quantity, the limit crossed and both values in SI, so a
-   * client can say it again in its own units with the field's own label.
-   */
-  params?: RangeIssueParams;
-}
-
-export interface ErrorBody {
-  error: { code: string; message: string; issues?: Issue[]; details?: Record<string, unknown> };
-}
+/** One field-level problem, as declared in src/schemas/api-error.ts (range issues carry their params). */
+export type Issue = ApiIssue;
 
 const domainStatus: Record<DomainErrorCode, number> = {
   NOT_FOUND: 404,
@@ -39,15 +30,30 @@ const domainStatus: Record<DomainErrorCode, number> = {
   SERVICE_UNAVAILABLE: 503,
 };
 
-export function json(body: unknown, status = 200, headers: HeadersInit = {}): Response {
-  return new Response(JSON.stringify(body), {
+export function json(body: unknown, status = 200, headers: HeadersInit = {}, replacer?: (key: string, value: unknown) => unknown): Response {
+  return new Response(JSON.stringify(body, replacer), {
     status,
     headers: { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store', ...headers },
   });
 }
 
+/**
+ * An endpoint's answer, typed by the schema that declares it in src/schemas (the one the
+ * OpenAPI document and the islands' client read), so an endpoint cannot answer a shape its
+ * contract does not declare. The body is not parsed again here: the type is the check.
+ */
+export function answer<S extends z.core.$ZodType>(
+  _schema: S,
+  body: Frozen<z.output<S>>,
+  status = 200,
+  headers: HeadersInit = {},
+  replacer?: (key: string, value: unknown) => unknown,
+): Response {
+  return json(body, status, headers, replacer);
+}
+
 export function errorResponse(status: number, code: string, message: string, issues?: Issue[], details?: Record<string, unknown>): Response {
-  const body: ErrorBody = { error: { code, message, ...(issues ? { issues } : {}), ...(details ? { details } : {}) } };
+  const body: ApiErrorBody = { error: { code, message, ...(issues ? { issues } : {}), ...(details ? { details } : {}) } };
   return json(body, status);
 }
 

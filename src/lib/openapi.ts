@@ -1,9 +1,14 @@
 /**
  * The API's OpenAPI 3.1 description, generated from the same zod schemas the endpoints
- * parse with, so the document cannot drift from what the server accepts.
+ * parse requests with (io 'input') and declare their answers with (io 'output', the ones the
+ * islands' client parses), so the document cannot drift from what the server accepts or says.
  */
 import { z } from 'zod';
 import { createAssessmentSchema } from '../schemas/assessment';
+import { submitAssessmentAnswerSchema } from '../schemas/assessment-answer';
+import { apiErrorSchema } from '../schemas/api-error';
+import { estimateAnswerSchema, plantResultSchema } from '../schemas/estimate';
+import { healthAnswerSchema } from '../schemas/health';
 import { ENGINE_VERSION, plantInputSchema } from '../engine';
 import { adminPaths, adminSchemas } from './openapi-admin';
 import { leadPaths, leadSchemas } from './openapi-leads';
@@ -11,68 +16,30 @@ import { APP_VERSION } from './site';
 
 const inputSchema = (schema: z.ZodType) => z.toJSONSchema(schema, { io: 'input', unrepresentable: 'any', target: 'draft-2020-12' });
 
-const errorSchema = {
-  type: 'object',
-  required: ['error'],
-  properties: {
-    error: {
-      type: 'object',
-      required: ['code', 'message'],
-      properties: {
-        code: { type: 'string', examples: ['VALIDATION_FAILED'] },
-        message: { type: 'string', description: 'A sentence a person can act on.' },
-        details: { type: 'object', description: 'Plain data to act on, e.g. who claimed a lead first and when ({ firm, claimedAt }).' },
-        issues: {
-          type: 'array',
-          items: {
-            type: 'object',
-            required: ['path', 'message'],
-            properties: {
-              path: { type: 'string', description: 'Dotted path of the field, e.g. runs.2.lengthM', examples: ['runs.0.lengthM'] },
-              message: { type: 'string' },
-              params: {
-                type: 'object',
-                description:
-                  'Present on range issues, so a client can say it again in its own units with its own label: the kind of quantity, which limit was crossed, the limit and the given value in SI (unitSI), and whether the limit itself is refused.',
-                required: ['quantity', 'limit', 'limitSI', 'givenSI', 'exclusive', 'unitSI'],
-                properties: {
-                  quantity: { type: 'string', enum: ['temperature', 'temperatureDifference', 'pressure', 'length', 'speed', 'fraction', 'percent', 'hours', 'years', 'count', 'money', 'conductivity', 'coefficient', 'number'] },
-                  limit: { type: 'string', enum: ['min', 'max'] },
-                  limitSI: { type: 'number' },
-                  givenSI: { type: 'number' },
-                  exclusive: { type: 'boolean' },
-                  unitSI: { type: 'string', examples: ['°C', 'kPa', 'm', 'h/yr'] },
-                },
-              },
-            },
-          },
-        },
-      },
-    },
-  },
-} as const;
+/**
+ * Every answer's schema, by its component name; the answers reference each other by these
+ * names (EstimateAnswer → PlantResult) instead of repeating themselves.
+ */
+function answerSchemas(): Record<string, unknown> {
+  const answers = z.registry<{ id: string }>();
+  answers.add(apiErrorSchema, { id: 'Error' });
+  answers.add(estimateAnswerSchema, { id: 'EstimateAnswer' });
+  answers.add(plantResultSchema, { id: 'PlantResult' });
+  answers.add(submitAssessmentAnswerSchema, { id: 'AssessmentSubmitted' });
+  answers.add(healthAnswerSchema, { id: 'Health' });
+  const { schemas } = z.toJSONSchema(answers, { io: 'output', target: 'draft-2020-12', uri: (id) => `#/components/schemas/${id}` });
+  // Each component sits inside the document: its own $schema and fragment $id would only confuse readers.
+  return Object.fromEntries(Object.entries(schemas).map(([id, { $schema: _schema, $id: _id, ...schema }]) => [id, schema]));
+}
+
+const ref = (id: string) => ({ $ref: `#/components/schemas/${id}` });
 
 const errorResponse = (description: string) => ({
   description,
-  content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } },
+  content: { 'application/json': { schema: ref('Error') } },
 });
 
-const assessmentCreated = {
-  type: 'object',
-  required: ['assessment'],
-  properties: {
-    assessment: {
-      type: 'object',
-      required: ['id', 'reference', 'status', 'regionName'],
-      properties: {
-        id: { type: 'string', format: 'uuid' },
-        reference: { type: 'string', examples: ['LW-7KQ4-MX'] },
-        status: { type: 'string', enum: ['fresh', 'unrouted', 'junk'] },
-        regionName: { type: ['string', 'null'] },
-      },
-    },
-  },
-} as const;
+const assessmentSubmitted = { 'application/json': { schema: ref('AssessmentSubmitted') } };
 
 export function openApiDocument() {
   return {
@@ -89,8 +56,8 @@ export function openApiDocument() {
         get: {
           summary: 'Version and database status',
           responses: {
-            '200': { description: 'Up; the database answers.' },
-            '503': { description: 'The database does not answer; the body says why.' },
+            '200': { description: 'Up; the database answers.', content: { 'application/json': { schema: ref('Health') } } },
+            '503': { description: 'The database does not answer; the body says why.', content: { 'application/json': { schema: ref('Health') } } },
           },
         },
       },
@@ -110,23 +77,8 @@ export function openApiDocument() {
           requestBody: { required: true, content: { 'application/json': { schema: { $ref: '#/components/schemas/PlantInput' } } } },
           responses: {
             '200': {
-              description: `The engine's PlantResult (engine ${ENGINE_VERSION}).`,
-              content: {
-                'application/json': {
-                  schema: {
-                    type: 'object',
-                    required: ['engineVersion', 'result'],
-                    properties: {
-                      engineVersion: { type: 'string' },
-                      result: {
-                        type: 'object',
-                        description:
-                          'PlantResult: per run the options weighed (leave, repair, insulate, add-layer, replace) with the chosen one and why, hazards at design air, notices; totals over the recommended actions; ranges; assumptions; warnings.',
-                      },
-                    },
-                  },
-                },
-              },
+              description: `The engine's PlantResult (engine ${ENGINE_VERSION}): per run the options weighed (leave, repair, insulate, add a layer, replace) with the chosen one and why, hazards at design air and notices; totals over the recommended work; ranges; assumptions; warnings.`,
+              content: { 'application/json': { schema: ref('EstimateAnswer') } },
             },
             '400': errorResponse('The input is invalid; each issue names its field.'),
             '415': errorResponse('The body is not JSON.'),
@@ -163,8 +115,8 @@ export function openApiDocument() {
             },
           },
           responses: {
-            '201': { description: 'Stored.', content: { 'application/json': { schema: assessmentCreated } } },
-            '200': { description: 'Already stored under this Idempotency-Key.', content: { 'application/json': { schema: assessmentCreated } } },
+            '201': { description: 'Stored.', content: assessmentSubmitted },
+            '200': { description: 'Already stored under this Idempotency-Key.', content: assessmentSubmitted },
             '400': errorResponse('Invalid input or a refused photo; each issue names its field.'),
             '413': errorResponse('The upload is too large.'),
             '422': errorResponse('The estimate is physically impossible.'),
@@ -180,7 +132,7 @@ export function openApiDocument() {
         PlantInput: inputSchema(plantInputSchema),
         CreateAssessment: inputSchema(createAssessmentSchema),
         ...adminSchemas(),
-        Error: errorSchema,
+        ...answerSchemas(),
         ...leadSchemas(),
       },
     },

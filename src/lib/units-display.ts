@@ -1,7 +1,8 @@
 /**
- * How Lagwise shows a quantity to a person: which unit in US customary or SI, how many
- * digits, thousands separators, currency. The engine keeps SI at full precision; these
- * helpers convert (with the engine's own factors) only for display and entry.
+ * Which unit each quantity is shown and typed in, in US customary or SI, and how a typed
+ * value goes back and forth. The engine keeps SI at full precision; these helpers convert
+ * (with the engine's own factors) only for display and entry. How a figure is rounded and
+ * written for reading lives in ./presentation (the one rounding rule).
  */
 import { celsiusToFahrenheit, fahrenheitToCelsius, fromSI, toSI } from '../engine';
 
@@ -42,6 +43,11 @@ const temperature = {
   US: unit('°F', celsiusToFahrenheit, fahrenheitToCelsius, 1),
 };
 const percent = { SI: unit('%', same, same, 1), US: unit('%', same, same, 1) };
+/** A difference of temperatures (a margin), stored in K. */
+const temperatureDifference = {
+  SI: unit('K', same, same, 1),
+  US: unit('°F', (k) => fromSI('temperatureDifference', k, '°F'), (f) => toSI('temperatureDifference', f, '°F'), 1),
+};
 
 /** Quantities the estimate shows, each with its unit per system. */
 export const DISPLAY_UNITS = {
@@ -50,6 +56,7 @@ export const DISPLAY_UNITS = {
   thickness: small,
   diameter: small,
   temperature,
+  temperatureDifference,
   gaugePressure: {
     SI: unit('bar (gauge)', (kPa) => fromSI('pressure', kPa, 'bar'), (bar) => toSI('pressure', bar, 'bar'), 2),
     US: unit('psig', (kPa) => fromSI('pressure', kPa, 'psi'), (psi) => toSI('pressure', psi, 'psi'), 1),
@@ -121,98 +128,4 @@ export function parseTyped(text: string): number | string | undefined {
   const normalised = trimmed.includes('.') ? trimmed.replace(/,/g, '') : trimmed.replace(',', '.');
   if (!/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(normalised)) return trimmed;
   return Number(normalised);
-}
-
-/** Rounds to a number of significant digits (0 stays 0). */
-export function roundSignificant(value: number, digits: number): number {
-  if (value === 0 || !Number.isFinite(value)) return value;
-  return Number(value.toPrecision(digits));
-}
-
-const numberFormats = new Map<string, Intl.NumberFormat>();
-function numberFormat(options: Intl.NumberFormatOptions): Intl.NumberFormat {
-  const key = JSON.stringify(options);
-  let format = numberFormats.get(key);
-  if (!format) {
-    format = new Intl.NumberFormat('en-US', options);
-    numberFormats.set(key, format);
-  }
-  return format;
-}
-
-export interface FigureOptions {
-  /** Significant digits kept (3 by default: honest for an estimate). */
-  readonly significant?: number;
-  /** Never more decimals than this (1 by default). */
-  readonly maxDecimals?: number;
-}
-
-/** A figure for reading: thousands separators, three significant digits, at most one decimal. */
-export function formatFigure(value: number, options: FigureOptions = {}): string {
-  if (!Number.isFinite(value)) return '—';
-  const { significant = 3, maxDecimals = 1 } = options;
-  const rounded = roundSignificant(value, significant);
-  const text = numberFormat({ maximumFractionDigits: maxDecimals, useGrouping: true }).format(rounded);
-  return text === '-0' ? '0' : text.replace('-', '−');
-}
-
-/** A stored value shown in the system's unit with its symbol: "491 W/m", "1,680 Btu/h per ft". */
-export function formatQuantity(
-  value: number,
-  quantity: DisplayQuantity,
-  system: UnitSystem,
-  options: FigureOptions = {},
-): string {
-  const shown = displayUnit(quantity, system);
-  return `${formatFigure(shown.fromBase(value), options)} ${shown.symbol}`;
-}
-
-/** Money in the plant's currency, three significant digits, no cents on figures this size. */
-export function formatMoney(value: number, currency: string, options: FigureOptions = {}): string {
-  if (!Number.isFinite(value)) return '—';
-  const { significant = 3 } = options;
-  const rounded = roundSignificant(value, significant);
-  const decimals = Math.abs(rounded) < 10 && rounded !== Math.round(rounded) ? 2 : 0;
-  try {
-    return numberFormat({
-      style: 'currency',
-      currency,
-      minimumFractionDigits: decimals,
-      maximumFractionDigits: decimals,
-    }).format(rounded).replace('-', '−');
-  } catch {
-    // A currency code Intl does not know still reads as "ABC 1,234".
-    return `${currency} ${formatFigure(rounded, { significant, maxDecimals: decimals })}`;
-  }
-}
-
-/**
- * A low–high range with an en dash, the unit said once: "$3,900–$5,500", "1,200–1,600 GJ",
- * "8–11 months"; a range whose ends round alike is one figure.
- */
-export function formatRange(low: number, high: number, format: (value: number) => string): string {
-  const from = format(low);
-  const to = format(high);
-  if (from === to) return from;
-  const split = (text: string) => /^([−\d.,]+) (.+)$/.exec(text);
-  const a = split(from);
-  const b = split(to);
-  if (a && b && a[2] === b[2]) return `${a[1]}–${b[1]} ${b[2]}`;
-  return `${from}–${to}`;
-}
-
-/** Years as a person says them: "11 months", "2.4 years". */
-export function formatYears(years: number | null): string {
-  if (years === null || !Number.isFinite(years)) return 'never on these inputs';
-  if (years < 1) {
-    const months = Math.max(1, Math.round(years * 12));
-    return `${months} ${months === 1 ? 'month' : 'months'}`;
-  }
-  const rounded = roundSignificant(years, 2);
-  return `${formatFigure(rounded, { significant: 2 })} ${rounded === 1 ? 'year' : 'years'}`;
-}
-
-/** Tonnes of CO₂ from kilograms: "22.7 t CO₂". */
-export function formatCo2(kg: number, options: FigureOptions = {}): string {
-  return `${formatFigure(kg / 1000, options)} t CO₂`;
 }

@@ -1,4 +1,4 @@
-import { and, asc, desc, eq } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray } from 'drizzle-orm';
 import type { Executor } from '../client';
 import {
   activityLog,
@@ -117,13 +117,28 @@ export async function listOwnerAssessments(db: Executor, ownerUserId: string) {
       plantName: assessments.plantName,
       companyName: assessments.companyName,
       createdAt: assessments.createdAt,
+      questionnaire: assessments.questionnaire,
       resultSnapshot: assessments.resultSnapshot,
+      engineVersion: assessments.engineVersion,
       regionName: regions.name,
     })
     .from(assessments)
     .leftJoin(regions, eq(regions.id, assessments.regionId))
     .where(eq(assessments.ownerUserId, ownerUserId))
     .orderBy(desc(assessments.createdAt));
+}
+
+/** Each assessment's run specs (as the engine takes them), in the owner's order, by assessment id. */
+export async function listRunSpecs(db: Executor, assessmentIds: readonly string[]): Promise<Map<string, unknown[]>> {
+  const specs = new Map<string, unknown[]>(assessmentIds.map((id) => [id, []]));
+  if (assessmentIds.length === 0) return specs;
+  const rows = await db
+    .select({ assessmentId: pipeRuns.assessmentId, spec: pipeRuns.spec })
+    .from(pipeRuns)
+    .where(inArray(pipeRuns.assessmentId, [...assessmentIds]))
+    .orderBy(asc(pipeRuns.assessmentId), asc(pipeRuns.position));
+  for (const row of rows) specs.get(row.assessmentId)?.push(row.spec);
+  return specs;
 }
 
 /** What the owner's confirmation e-mail needs. */
@@ -135,7 +150,7 @@ export async function getAssessmentForMail(db: Executor, assessmentId: string) {
     .where(eq(assessments.id, assessmentId));
   if (!row) return null;
   const runs = await db
-    .select({ label: pipeRuns.label, service: pipeRuns.service, lengthM: pipeRuns.lengthM })
+    .select({ label: pipeRuns.label, service: pipeRuns.service, lengthM: pipeRuns.lengthM, spec: pipeRuns.spec })
     .from(pipeRuns)
     .where(eq(pipeRuns.assessmentId, assessmentId))
     .orderBy(asc(pipeRuns.position));

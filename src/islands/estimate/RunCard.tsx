@@ -11,7 +11,8 @@ import {
   type PipeStandard,
   type ServiceId,
 } from '../../engine';
-import { displayUnit, formatForInput, formatQuantity, type DisplayQuantity, type UnitSystem } from '../../lib/units-display';
+import { displayFormat } from '../../lib/presentation';
+import { displayUnit, formatForInput, type DisplayQuantity, type UnitSystem } from '../../lib/units-display';
 import { existingInsulationDefaults, pipeStandard, serviceCondition, type DraftValues } from './draft';
 import { ChoiceField, CheckField, GuessToggle, NumberField, SelectField, TextField, useHasErrorUnder, useUnitSystem, type Option } from './fields';
 import { PhotoPicker } from './PhotoPicker';
@@ -45,14 +46,15 @@ const STANDARD_NAMES: Record<string, string> = {
 
 /** "NPS 2 · 2.375 in OD", "DN50 · 60.3 mm OD", "3/4 in · 0.875 in OD". */
 function sizeLabel(standard: PipeStandard, entry: PipeSizeEntry, system: UnitSystem): string {
-  const od = formatQuantity(entry.outerDiameterM, 'diameter', system, { significant: 4, maxDecimals: system === 'US' ? 3 : 1 });
+  // Four figures: people match the catalogue's own dimension ("2.375 in").
+  const od = displayFormat({ system }).quantity(entry.outerDiameterM, 'diameter', 4);
   if (standard.id.startsWith('ASME')) return `NPS ${entry.size} · ${od} OD`;
   if (standard.id.startsWith('ASTM')) return `${entry.size} in · ${od} OD`;
   return `${entry.size} · ${od} OD`;
 }
 
 function scheduleLabel(standard: PipeStandard, key: string, wallM: number, system: UnitSystem): string {
-  const wall = formatQuantity(wallM, 'thickness', system, { significant: 3, maxDecimals: system === 'US' ? 3 : 1 });
+  const wall = displayFormat({ system }).quantity(wallM, 'thickness');
   if (standard.id === 'EN-10220') return `${wall} wall`;
   if (standard.id.startsWith('ASTM')) return `Type ${key} · ${wall} wall`;
   const named: Record<string, string> = { STD: 'STD (standard weight)', XS: 'XS (extra strong)' };
@@ -132,7 +134,7 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
 
   const insulationOptions: Option[] = INSULATION_MATERIALS.map((m) => ({
     value: m.id,
-    label: `${m.name} (${formatQuantity(m.serviceMinC, 'temperature', system, { significant: 3, maxDecimals: 0 })} to ${formatQuantity(m.serviceMaxC, 'temperature', system, { significant: 3, maxDecimals: 0 })})`,
+    label: `${m.name} (${displayFormat({ system }).temperature(m.serviceMinC)} to ${displayFormat({ system }).temperature(m.serviceMaxC)})`,
   }));
   const jacketOptions: Option[] = JACKETS.map((j) => ({ value: j.id, label: j.name }));
   const proposalHasError = useHasErrorUnder(`${base}.proposed`);

@@ -4,8 +4,35 @@
  */
 import { useEffect, useRef, useState } from 'react';
 import type { PlantResult } from '../../engine';
-import { formatMoney, formatRange, formatYears } from '../../lib/units-display';
+import type { UnitSystem } from '../../lib/presentation';
+import { useUnitSystem } from './fields';
 import type { LiveEstimate } from './store';
+
+type Presentation = typeof import('../../lib/presentation');
+let presentation: Presentation | null = null;
+
+/**
+ * The shared presentation, imported with the first result rather than with the page: nothing
+ * is shown before an estimate arrives, and the page's first load stays light. A failed
+ * import (a dropped connection) is tried again with the next result.
+ */
+function usePresentation(result: PlantResult | null): Presentation | null {
+  const [loaded, setLoaded] = useState<Presentation | null>(presentation);
+  useEffect(() => {
+    if (loaded || !result) return;
+    let current = true;
+    import('../../lib/presentation')
+      .then((module) => {
+        presentation = module;
+        if (current) setLoaded(module);
+      })
+      .catch(() => undefined);
+    return () => {
+      current = false;
+    };
+  }, [loaded, result]);
+  return loaded;
+}
 
 interface Props {
   live: LiveEstimate;
@@ -20,20 +47,22 @@ export function liveStatus(live: LiveEstimate): string | null {
   return null;
 }
 
-function headline(result: PlantResult) {
-  const money = (value: number) => formatMoney(value, result.currency);
-  const moneyRange = (value: number) => formatMoney(value, result.currency, { significant: 2 });
+/** The strip's few figures, from the shared presentation (the same strings as the results step). */
+function headline(p: Presentation, result: PlantResult, system: UnitSystem) {
+  const { lossCost, saving, payback } = p.headlineFor(result, { system });
   return {
-    lost: money(result.range.currentAnnualCost.likely),
-    lostRange: formatRange(result.range.currentAnnualCost.low, result.range.currentAnnualCost.high, moneyRange),
-    saved: money(result.range.annualCostSaving.likely),
-    payback: formatYears(result.totals.simplePaybackYears),
+    lost: lossCost.value,
+    lostRange: lossCost.range?.text ?? lossCost.value,
+    saved: saving.value,
+    payback: payback.value,
   };
 }
 
 export function SummaryStrip({ live, onShowResults }: Props) {
   const status = liveStatus(live);
-  const figures = live.result ? headline(live.result) : null;
+  const system = useUnitSystem();
+  const p = usePresentation(live.result);
+  const figures = live.result && p ? headline(p, live.result, system) : null;
   return (
     <section className="summary-strip" aria-labelledby="summary-strip-heading" aria-busy={live.loading}>
       <h2 id="summary-strip-heading" className="summary-strip-title">
@@ -76,17 +105,19 @@ export function SummaryStrip({ live, onShowResults }: Props) {
 
 /** Says each new result once, politely, without moving focus. */
 export function ResultAnnouncer({ live }: { live: LiveEstimate }) {
+  const system = useUnitSystem();
+  const p = usePresentation(live.result);
   const [text, setText] = useState('');
   const announcedFor = useRef<string | null>(null);
   useEffect(() => {
-    if (!live.result || live.loading || live.resultFor === announcedFor.current) return;
+    if (!p || !live.result || live.loading || live.resultFor === announcedFor.current) return;
     const first = announcedFor.current === null;
     announcedFor.current = live.resultFor;
-    const figures = headline(live.result);
+    const figures = headline(p, live.result, system);
     setText(
       `${first ? 'Estimate ready' : 'Estimate updated'}: about ${figures.lost} a year lost, likely ${figures.lostRange}; insulating would save about ${figures.saved} a year.`,
     );
-  }, [live]);
+  }, [p, live, system]);
   return (
     <div className="sr-only" aria-live="polite" aria-atomic="true">
       {text}

@@ -1,14 +1,16 @@
 /**
  * Turns an OutgoingEmail (data) into subject, HTML and text: loads what the template needs
- * from the database, formats the figures, renders the React Email template.
+ * from the database, reads the stored estimate and takes its figures from the shared
+ * presentation (in the owner's units, as on their page), renders the React Email template.
  */
 import { render } from '@react-email/components';
 import { createElement, type ReactElement } from 'react';
 import { getDb } from '../../db/client';
 import { getAssessmentForMail } from '../../db/queries/assessments';
 import { plantTypes } from '../../schemas/assessment';
-import { serviceDefaults, type PlantResult, type ServiceId } from '../../engine';
-import { formatMoney, formatYears } from '../units-display';
+import { unitSystemOf } from '../assessments/questionnaire';
+import { readStoredResult, storedPlantInput } from '../assessments/stored-result';
+import { presentResult, serviceWords } from '../presentation';
 import { appBaseUrl } from '../site';
 import type { RenderedEmail } from './mailer';
 import type { OutgoingEmail } from './messages';
@@ -43,10 +45,16 @@ export class NothingToSend extends Error {}
 async function loadAssessment(assessmentId: string) {
   const found = await getAssessmentForMail(getDb(), assessmentId);
   if (!found) throw new NothingToSend(`assessment ${assessmentId} no longer exists`);
-  const result = found.resultSnapshot as PlantResult;
-  const money = (amount: number) => formatMoney(amount, result.currency);
-  const hazardCount = result.runs.filter((run) => run.hazards.length > 0).length;
-  return { found, result, money, hazardCount };
+  const reading = readStoredResult({
+    resultSnapshot: found.resultSnapshot,
+    engineVersion: found.engineVersion,
+    input: storedPlantInput(found.questionnaire, found.runs.map((run) => run.spec)),
+  });
+  // The mail still goes (the owner needs their sign-in link); it just carries no figures.
+  if (reading.status === 'unreadable') console.error(`[mail] assessment ${assessmentId}: ${reading.reason}`);
+  // In the owner's units, as on their page and on the results they saw.
+  const presented = reading.status === 'unreadable' ? null : presentResult(reading.result, { system: unitSystemOf(found.questionnaire) });
+  return { found, presented };
 }
 
 function plantTypeName(id: string): string {
@@ -58,8 +66,7 @@ export async function renderEmail(email: OutgoingEmail): Promise<RenderedEmail> 
     case 'sign-in-link':
       return { to: email.to, subject: signInLinkSubject, ...(await both(createElement(SignInLink, email.props))) };
     case 'submission-confirmation': {
-      const { found, result, money, hazardCount } = await loadAssessment(email.props.assessmentId);
-      const cost = result.range.currentAnnualCost;
+      const { found, presented } = await loadAssessment(email.props.assessmentId);
       const element = createElement(SubmissionConfirmation, {
         contactName: found.contactName,
         reference: found.reference,
@@ -69,16 +76,22 @@ export async function renderEmail(email: OutgoingEmail): Promise<RenderedEmail> 
         signInPageUrl: `${appBaseUrl()}/sign-in`,
         regionName: found.regionName,
         postalCode: found.postalCode,
-        annualCost: { likely: money(cost.likely), low: money(cost.low), high: money(cost.high) },
-        annualSaving: money(result.totals.savings.annualCost),
-        payback: formatYears(result.totals.simplePaybackYears),
-        hazardCount,
+        figures: presented && {
+          annualCost: {
+            likely: presented.headline.lossCost.value,
+            low: presented.headline.lossCost.range?.low ?? presented.headline.lossCost.value,
+            high: presented.headline.lossCost.range?.high ?? presented.headline.lossCost.value,
+          },
+          annualSaving: presented.headline.saving.value,
+          payback: presented.headline.payback.value,
+          runsWithHazards: presented.runsWithHazards,
+        },
       });
       return { to: email.to, subject: submissionConfirmationSubject(found.reference), ...(await both(element)) };
     }
     case 'consultant-alert': {
-      const { found, result, money, hazardCount } = await loadAssessment(email.props.assessmentId);
-      const services = [...new Set(found.runs.map((run) => serviceDefaults(run.service as ServiceId).name.toLowerCase()))];
+      const { found, presented } = await loadAssessment(email.props.assessmentId);
+      const services = [...new Set(found.runs.map((run) => serviceWords(run.service).toLowerCase()))];
       const props = {
         consultantName: email.props.consultantName,
         reference: found.reference,
@@ -87,9 +100,11 @@ export async function renderEmail(email: OutgoingEmail): Promise<RenderedEmail> 
         area: `${found.postalCodeNormalised.slice(0, 3)} (${found.countryCode})`,
         runCount: found.runs.length,
         services: services.join(', '),
-        annualCost: money(result.totals.current.annualCost),
-        annualSaving: money(result.totals.savings.annualCost),
-        hazardCount,
+        figures: presented && {
+          annualCost: presented.headline.lossCost.value,
+          annualSaving: presented.headline.saving.value,
+          runsWithHazards: presented.runsWithHazards,
+        },
         claimUrl: `${appBaseUrl()}/desk/leads/${found.id}`,
         ...(email.props.reopened ? { reopened: true } : {}),
       };

@@ -1,5 +1,6 @@
 import { ENGINE_VERSION, estimateParsedPlant, plantInputSchema } from '../../engine';
-import { endpoint, parseJsonBody } from '../../lib/http';
+import { answer, endpoint, parseJsonBody } from '../../lib/http';
+import { estimateAnswerSchema } from '../../schemas/estimate';
 
 export const prerender = false;
 
@@ -19,6 +20,5 @@ function rounded(_key: string, value: unknown): unknown {
 export const POST = endpoint(async ({ request, url }) => {
   const input = await parseJsonBody(request, plantInputSchema);
   const detail = url.searchParams.get('detail') === 'full' ? 'full' : 'summary';
-  const body = JSON.stringify({ engineVersion: ENGINE_VERSION, result: estimateParsedPlant(input, { detail }) }, rounded);
-  return new Response(body, { status: 200, headers: { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store' } });
+  return answer(estimateAnswerSchema, { engineVersion: ENGINE_VERSION, result: estimateParsedPlant(input, { detail }) }, 200, {}, rounded);
 });

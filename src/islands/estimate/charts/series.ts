@@ -3,7 +3,8 @@
  * alternative lists. Every figure comes from the engine's PlantResult.
  */
 import type { PlantResult, RunEstimate } from '../../../engine';
-import { displayUnit, formatFigure, formatMoney, formatQuantity, type UnitSystem } from '../../../lib/units-display';
+import type { DisplayFormat } from '../../../lib/presentation';
+import { displayUnit } from '../../../lib/units-display';
 
 /** Colours are our tokens, named here and resolved from the stylesheet where the chart is drawn. */
 export type Tone = 'ember' | 'frost' | 'mineral' | 'graphite' | 'graphite-soft';
@@ -31,8 +32,8 @@ export interface ChartSpec {
 }
 
 /** Heat lost (or gained, cold lines) a year by run, now and with the proposal. */
-export function lossByRun(result: PlantResult, system: UnitSystem): ChartSpec {
-  const unit = displayUnit('energyPerYear', system);
+export function lossByRun(result: PlantResult, f: DisplayFormat): ChartSpec {
+  const unit = displayUnit('energyPerYear', f.system);
   return {
     kind: 'bar',
     name: `Bar chart: heat lost or gained a year by run, now and with the proposed insulation, in ${unit.symbol}.`,
@@ -52,7 +53,7 @@ export function lossByRun(result: PlantResult, system: UnitSystem): ChartSpec {
     ],
     xTitle: 'Run',
     yTitle: `Heat a year (${unit.symbol})`,
-    format: (value) => `${formatFigure(value)} ${unit.symbol}`,
+    format: (value) => f.quantity(unit.toBase(value), 'energyPerYear'),
   };
 }
 
@@ -62,11 +63,10 @@ export function lossByRun(result: PlantResult, system: UnitSystem): ChartSpec {
  * than the proposal, its surface temperature carries across the missing layer: nothing is
  * there to take a drop.
  */
-export function temperatureProfile(run: RunEstimate, system: UnitSystem, touchLimitC: number): ChartSpec {
-  const unit = displayUnit('temperature', system);
+export function temperatureProfile(run: RunEstimate, f: DisplayFormat, touchLimitC: number): ChartSpec {
+  const unit = displayUnit('temperature', f.system);
   const air = run.air.temperatureC;
-  // The island asks for the full answer (POST /api/estimate?detail=full), which carries the profiles.
-  const proposedFaces = run.proposed.profile?.faceTemperaturesC ?? [];
+  const proposedFaces = run.proposed.profile.faceTemperaturesC;
   const layerFaces = proposedFaces.length - 2;
   const labels = [
     'In the pipe',
@@ -75,11 +75,11 @@ export function temperatureProfile(run: RunEstimate, system: UnitSystem, touchLi
     ...Array.from({ length: layerFaces }, (_, i) => (layerFaces === 1 ? 'Insulation, outer face' : `Layer ${i + 1}, outer face`)),
     'Surrounding air',
   ];
-  const nowFaces = [...(run.current.profile?.faceTemperaturesC ?? [])];
+  const nowFaces = [...run.current.profile.faceTemperaturesC];
   while (nowFaces.length < proposedFaces.length) nowFaces.push(nowFaces[nowFaces.length - 1] ?? run.fluidTemperatureC);
   const limit = run.cold
-    ? { label: `Dew point of the air (${formatQuantity(run.air.dewPointC, 'temperature', system)})`, valueC: run.air.dewPointC, tone: 'frost' as const }
-    : { label: `Touch limit (${formatQuantity(touchLimitC, 'temperature', system)})`, valueC: touchLimitC, tone: 'ember' as const };
+    ? { label: `Dew point of the air (${f.temperature(run.air.dewPointC)})`, valueC: run.air.dewPointC, tone: 'frost' as const }
+    : { label: `Touch limit (${f.temperature(touchLimitC)})`, valueC: touchLimitC, tone: 'ember' as const };
   return {
     kind: 'line',
     name: `Line chart: temperature from the ${run.cold ? 'cold line' : 'fluid'} out to the air, face by face, for ${run.label}, now and with the proposed insulation, in ${unit.symbol}.`,
@@ -99,36 +99,34 @@ export function temperatureProfile(run: RunEstimate, system: UnitSystem, touchLi
     ],
     xTitle: 'From the inside out',
     yTitle: `Temperature (${unit.symbol})`,
-    format: (value) => `${formatFigure(value, { significant: 3, maxDecimals: 1 })} ${unit.symbol}`,
+    format: (value) => f.temperature(unit.toBase(value)),
   };
 }
 
 /** Life-cycle cost against thickness for one run's proposed material, the economic thickness marked. */
-export function lifeCycleByThickness(run: RunEstimate, system: UnitSystem, currency: string, horizonYears: number): ChartSpec {
-  const thickness = displayUnit('thickness', system);
+export function lifeCycleByThickness(run: RunEstimate, f: DisplayFormat, horizonYears: number): ChartSpec {
   const economic = run.economicThickness?.thicknessM;
-  const thicknessSeries = run.thicknessSeries ?? [];
   return {
     kind: 'line',
     name: `Line chart: cost over ${horizonYears} years against insulation thickness for ${run.label}, with the economic thickness marked.`,
-    labels: thicknessSeries.map((option) => `${formatFigure(thickness.fromBase(option.thicknessM), { significant: 3, maxDecimals: system === 'US' ? 3 : 0 })} ${thickness.symbol}`),
+    labels: run.thicknessSeries.map((option) => f.thickness(option.thicknessM)),
     series: [
-      { label: `Life-cycle cost (installed + ${horizonYears} years of heat)`, values: thicknessSeries.map((o) => o.lifeCycleCost), tone: 'graphite' },
-      { label: 'Installed cost alone', values: thicknessSeries.map((o) => o.installedCost), tone: 'graphite-soft', dashed: true },
+      { label: `Life-cycle cost (installed + ${horizonYears} years of heat)`, values: run.thicknessSeries.map((o) => o.lifeCycleCost), tone: 'graphite' },
+      { label: 'Installed cost alone', values: run.thicknessSeries.map((o) => o.installedCost), tone: 'graphite-soft', dashed: true },
       {
         label: 'Economic thickness',
-        values: thicknessSeries.map((o) => (economic !== undefined && Math.abs(o.thicknessM - economic) < 1e-9 ? o.lifeCycleCost : null)),
+        values: run.thicknessSeries.map((o) => (economic !== undefined && Math.abs(o.thicknessM - economic) < 1e-9 ? o.lifeCycleCost : null)),
         tone: 'mineral',
         pointsOnly: true,
       },
     ],
-    xTitle: `Insulation thickness (${thickness.symbol})`,
-    yTitle: `Cost (${currency})`,
-    format: (value) => formatMoney(value, currency),
+    xTitle: `Insulation thickness (${f.unit('thickness')})`,
+    yTitle: `Cost (${f.currency})`,
+    format: (value) => f.money(value),
   };
 }
 
-export function cashFlow(result: PlantResult): ChartSpec {
+export function cashFlow(result: PlantResult, f: DisplayFormat): ChartSpec {
   const years = result.totals.cashFlow;
   const { horizonYears, discountRatePercent, fuelEscalationPercent } = result.assumptions;
   return {
@@ -137,12 +135,12 @@ export function cashFlow(result: PlantResult): ChartSpec {
     labels: years.map((y) => `Year ${y.year}`),
     series: [
       {
-        label: `Cash, fuel price rising ${formatFigure(fuelEscalationPercent)} % a year`,
+        label: `Cash, fuel price rising ${f.number(fuelEscalationPercent)} % a year`,
         values: years.map((y) => y.cumulative),
         tone: 'mineral',
       },
       {
-        label: `Present value at ${formatFigure(discountRatePercent)} % a year`,
+        label: `Present value at ${f.number(discountRatePercent)} % a year`,
         values: years.map((y) => y.cumulativePresentValue),
         tone: 'graphite',
         dashed: true,
@@ -150,6 +148,6 @@ export function cashFlow(result: PlantResult): ChartSpec {
     ],
     xTitle: 'Year',
     yTitle: `Cumulative (${result.currency})`,
-    format: (value) => formatMoney(value, result.currency),
+    format: (value) => f.money(value),
   };
 }

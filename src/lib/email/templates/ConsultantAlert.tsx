@@ -10,9 +10,8 @@ export interface ConsultantAlertProps {
   area: string;
   runCount: number;
   services: string;
-  annualCost: string;
-  annualSaving: string;
-  hazardCount: number;
+  /** From the shared presentation; null when the stored figures cannot be shown. */
+  figures: { annualCost: string; annualSaving: string; runsWithHazards: number } | null;
   claimUrl: string;
   /** The lead was handed back by the consultant who held it and is open again. */
   reopened?: boolean;
@@ -23,7 +22,13 @@ export const consultantAlertSubject = (p: Pick<ConsultantAlertProps, 'regionName
 
 export function ConsultantAlert(p: ConsultantAlertProps) {
   return (
-    <Frame preview={`A ${p.plantType.toLowerCase()} in ${p.area} is losing about ${p.annualCost} a year through bare pipe.`}>
+    <Frame
+      preview={
+        p.figures
+          ? `A ${p.plantType.toLowerCase()} in ${p.area} is losing about ${p.figures.annualCost} a year through bare pipe.`
+          : `A ${p.plantType.toLowerCase()} in ${p.area} has sent an assessment.`
+      }
+    >
       <Heading as="h1" style={{ fontSize: 22, margin: '0 0 14px' }}>
         {p.reopened ? `A lead is open again in ${p.regionName}` : `A new lead in ${p.regionName}`}
       </Heading>
@@ -39,12 +44,14 @@ export function ConsultantAlert(p: ConsultantAlertProps) {
         <Text style={{ ...textStyle, margin: '0 0 4px' }}>
           {p.runCount} pipe run{p.runCount === 1 ? '' : 's'}: {p.services}
         </Text>
-        <Text style={{ ...textStyle, margin: '0 0 4px' }}>
-          Estimated loss {p.annualCost} a year; the proposal saves about {p.annualSaving} a year.
-        </Text>
-        {p.hazardCount > 0 && (
+        {p.figures && (
+          <Text style={{ ...textStyle, margin: '0 0 4px' }}>
+            Estimated loss {p.figures.annualCost} a year; the proposal saves about {p.figures.annualSaving} a year.
+          </Text>
+        )}
+        {p.figures && p.figures.runsWithHazards > 0 && (
           <Text style={{ ...textStyle, color: mailColours.ember, margin: 0 }}>
-            {p.hazardCount} run{p.hazardCount === 1 ? '' : 's'} flagged for burns or condensation.
+            {p.figures.runsWithHazards} run{p.figures.runsWithHazards === 1 ? '' : 's'} flagged for burns or condensation.
           </Text>
         )}
       </Section>

@@ -11,18 +11,26 @@ export interface SubmissionConfirmationProps {
   signInPageUrl: string;
   regionName: string | null;
   postalCode: string;
-  /** Pre-formatted figures, so the template only lays out. */
-  annualCost: { likely: string; low: string; high: string };
-  annualSaving: string;
-  payback: string;
-  hazardCount: number;
+  /** Figures from the shared presentation, so the template only lays out; null when they cannot be shown. */
+  figures: {
+    annualCost: { likely: string; low: string; high: string };
+    annualSaving: string;
+    payback: string;
+    runsWithHazards: number;
+  } | null;
 }
 
 export const submissionConfirmationSubject = (reference: string) => `Your Lagwise assessment ${reference} is in`;
 
 export function SubmissionConfirmation(p: SubmissionConfirmationProps) {
   return (
-    <Frame preview={`We have your assessment of ${p.plantLabel}: about ${p.annualCost.likely} a year lost through its pipe runs.`}>
+    <Frame
+      preview={
+        p.figures
+          ? `We have your assessment of ${p.plantLabel}: about ${p.figures.annualCost.likely} a year lost through its pipe runs.`
+          : `We have your assessment of ${p.plantLabel}.`
+      }
+    >
       <Heading as="h1" style={{ fontSize: 22, margin: '0 0 14px' }}>
         Thank you, {p.contactName}
       </Heading>
@@ -30,20 +38,23 @@ export function SubmissionConfirmation(p: SubmissionConfirmationProps) {
         We have your assessment of {p.plantLabel} ({p.runCount} pipe run{p.runCount === 1 ? '' : 's'}). Its reference is{' '}
         <strong>{p.reference}</strong>.
       </Text>
-      <Section style={{ backgroundColor: mailColours.paper, borderRadius: 6, padding: '14px 18px', margin: '0 0 16px' }}>
-        <Text style={{ ...textStyle, margin: '0 0 6px' }}>
-          Heat lost through these runs costs about <strong>{p.annualCost.likely} a year</strong> (likely between {p.annualCost.low} and{' '}
-          {p.annualCost.high}).
-        </Text>
-        <Text style={{ ...textStyle, margin: 0 }}>
-          Insulating them as proposed would save about <strong>{p.annualSaving} a year</strong> and pay back in {p.payback}.
-        </Text>
-        {p.hazardCount > 0 && (
-          <Text style={{ ...textStyle, color: mailColours.ember, margin: '6px 0 0' }}>
-            {p.hazardCount} run{p.hazardCount === 1 ? ' has' : 's have'} a safety flag (a surface hot enough to burn or cold enough to sweat).
+      {p.figures && (
+        <Section style={{ backgroundColor: mailColours.paper, borderRadius: 6, padding: '14px 18px', margin: '0 0 16px' }}>
+          <Text style={{ ...textStyle, margin: '0 0 6px' }}>
+            Heat lost through these runs costs about <strong>{p.figures.annualCost.likely} a year</strong> (likely between{' '}
+            {p.figures.annualCost.low} and {p.figures.annualCost.high}).
           </Text>
-        )}
-      </Section>
+          <Text style={{ ...textStyle, margin: 0 }}>
+            Insulating them as proposed would save about <strong>{p.figures.annualSaving} a year</strong> and pay back in {p.figures.payback}.
+          </Text>
+          {p.figures.runsWithHazards > 0 && (
+            <Text style={{ ...textStyle, color: mailColours.ember, margin: '6px 0 0' }}>
+              {p.figures.runsWithHazards} run{p.figures.runsWithHazards === 1 ? ' has' : 's have'} a safety flag (a surface hot enough to
+              burn or cold enough to sweat).
+            </Text>
+          )}
+        </Section>
+      )}
       <Text style={textStyle}>
         {p.regionName
           ? `An insulation consultant who covers ${p.regionName} will look at it and contact you to arrange a site visit.`

@@ -1,6 +1,7 @@
 import { createAssessmentSchema, MAX_PHOTO_BYTES, MAX_PHOTOS, PHOTO_FIELD } from '../../../schemas/assessment';
+import { submitAssessmentAnswerSchema } from '../../../schemas/assessment-answer';
 import { submitAssessment, type SubmittedPhoto } from '../../../lib/assessments/submit';
-import { endpoint, HttpResponseError, json, parseJsonBody, parseValue, validationFailed } from '../../../lib/http';
+import { answer, endpoint, HttpResponseError, parseJsonBody, parseValue, validationFailed } from '../../../lib/http';
 import { readMultipart } from '../../../lib/multipart';
 import { checkPhotoCount, cleanPhoto, photoRefusalError } from '../../../lib/uploads/photos';
 
@@ -62,5 +63,5 @@ export const POST = endpoint(async ({ request, clientAddress }) => {
     input = await parseJsonBody(request, createAssessmentSchema);
   }
   const outcome = await submitAssessment(input, photos, { idempotencyKey, clientAddress });
-  return json({ assessment: outcome.assessment }, outcome.replayed ? 200 : 201);
+  return answer(submitAssessmentAnswerSchema, { assessment: outcome.assessment }, outcome.replayed ? 200 : 201);
 });

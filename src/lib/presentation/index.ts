@@ -1,0 +1,36 @@
+/**
+ * Lagwise's one presentation of an estimate — the door. Pure TypeScript (no Astro, React or
+ * DOM), so pages, islands, e-mails and PDF reports all show the same strings.
+ *
+ * - {@link presentResult}: a PlantResult → names, headline figures with ranges, run rows,
+ *   hazards in the reader's units, notes and basis sentences.
+ * - {@link headlineFor}: the headline figures alone (the live summary strip, lists).
+ * - {@link displayFormat}: the formatters behind it (the one rounding rule), for anything a
+ *   layout adds — a chart axis, a form's hint.
+ * - The word tables for the engine's ids.
+ */
+export { presentResult, type PresentedHazard, type PresentedResult, type PresentedRun } from './present';
+export { headlineFor, presentHeadline, type PresentedFigure, type PresentedHeadline } from './headline';
+export {
+  displayFormat,
+  roundToStep,
+  stepFor,
+  MINUS,
+  NBSP,
+  ROUNDING,
+  type DisplayFormat,
+  type DisplayOptions,
+  type FormattedRange,
+} from './format';
+export {
+  HAZARD_FLAGS,
+  MATERIAL_WORDS,
+  PLANT_NOTE_WORDS,
+  SERVICE_WORDS,
+  STATE_WORDS,
+  SURFACE_WORDS,
+  materialWords,
+  serviceWords,
+  surfaceWords,
+} from './words';
+export type { UnitSystem } from '../units-display';

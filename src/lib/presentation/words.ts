@@ -1,0 +1,88 @@
+/**
+ * The words Lagwise shows for the engine's ids: services, insulation materials, covers
+ * (jackets), the state a run is in, hazard flags and plant notes. Our own wording, in US
+ * spelling, kept here once; the engine's catalogue names stay the engine's.
+ *
+ * Each table is typed by the engine's id union, so a new service, material or cover in the
+ * engine fails the typecheck until it has its words here.
+ */
+import type { InsulationMaterialId, PlantWarning, RunEstimate, RunWarningCode, ServiceId, SurfaceId } from '../../engine';
+
+/** What a line carries, as an owner says it. */
+export const SERVICE_WORDS: Readonly<Record<ServiceId, string>> = {
+  steam: 'Steam',
+  'condensate-return': 'Condensate return',
+  'hot-water': 'Hot water',
+  'cip-supply': 'Clean-in-place supply',
+  'cip-return': 'Clean-in-place return',
+  'chilled-water': 'Chilled water',
+  glycol: 'Glycol (30 % propylene)',
+};
+
+/** Insulation materials by what an installer would call them on site. */
+export const MATERIAL_WORDS: Readonly<Record<InsulationMaterialId, string>> = {
+  'glass-fibre': 'Fiberglass',
+  'mineral-wool': 'Mineral wool',
+  'calcium-silicate': 'Calcium silicate',
+  'cellular-glass': 'Cellular glass',
+  'flexible-elastomeric': 'Flexible foam tube',
+  polyisocyanurate: 'Rigid PIR foam',
+};
+
+/** What the outside of a run is: a bare pipe's metal, or the cover over its insulation. */
+export const SURFACE_WORDS: Readonly<Record<SurfaceId, string>> = {
+  'bare-carbon-steel': 'bare steel',
+  'bare-stainless-steel': 'bare stainless steel',
+  'bare-copper': 'bare copper',
+  'painted-metal': 'a painted or mastic finish',
+  'all-service-jacket': 'a white paper-faced wrap',
+  'pvc-jacket': 'a PVC cover',
+  'aluminium-jacket': 'aluminum sheeting',
+  'stainless-steel-jacket': 'stainless steel sheeting',
+  'galvanised-steel-jacket': 'galvanized steel sheeting',
+  'elastomeric-skin': 'no cover (the foam’s own skin)',
+};
+
+/** The state a run is in today. */
+export const STATE_WORDS: Readonly<Record<RunEstimate['current']['state'], string>> = {
+  bare: 'Bare',
+  damaged: 'Partly bare',
+  insulated: 'Insulated',
+};
+
+/** A hazard's short flag (always words, never colour alone) and its tone. */
+export const HAZARD_FLAGS: Readonly<Record<RunWarningCode, { readonly flag: string; readonly tone: 'heat' | 'cold' | 'plain' }>> = {
+  SURFACE_ABOVE_TOUCH_LIMIT: { flag: 'Burns on touch', tone: 'heat' },
+  SURFACE_BELOW_DEW_POINT: { flag: 'Sweats: below the dew point', tone: 'cold' },
+  MATERIAL_ABOVE_SERVICE_LIMIT: { flag: 'Insulation too hot for its rating', tone: 'plain' },
+  MATERIAL_BELOW_SERVICE_LIMIT: { flag: 'Insulation too cold for its rating', tone: 'plain' },
+  INSULATION_BELOW_CRITICAL_RADIUS: { flag: 'Thin layer adds heat flow', tone: 'plain' },
+  RAYLEIGH_BEYOND_CORRELATION: { flag: 'Approximate: very large line', tone: 'plain' },
+};
+
+/** Plant-wide notes on the figures. */
+export const PLANT_NOTE_WORDS: Readonly<Record<PlantWarning['code'], string>> = {
+  ILLUSTRATIVE_PRICES:
+    'Installed costs are Lagwise’s illustrative prices, not a quotation; a consultant prices the real work with their own.',
+  COLD_LINES_NOT_PRICED: 'Heat gained by the cold lines is not priced: give an electricity price for the chillers to include it.',
+  NO_SAVING: 'Insulating as proposed saves nothing on these answers.',
+};
+
+function lookup<K extends string>(table: Readonly<Record<K, string>>, id: string): string | undefined {
+  return Object.hasOwn(table, id) ? table[id as K] : undefined;
+}
+
+/** The words for a service id; an id we have no words for is shown as given. */
+export function serviceWords(id: string): string {
+  return lookup(SERVICE_WORDS, id) ?? id;
+}
+
+/** The words for an insulation material id. */
+export function materialWords(id: string): string {
+  return lookup(MATERIAL_WORDS, id) ?? id;
+}
+
+/** The words for a surface or cover id, lower case to sit inside a sentence. */
+export function surfaceWords(id: string): string {
+  return lookup(SURFACE_WORDS, id) ?? id;
+}

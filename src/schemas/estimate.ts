@@ -1,0 +1,141 @@
+/**
+ * The answer of POST /api/estimate: the engine's PlantResult, declared once as a zod schema.
+ * The island's client parses answers with it and the OpenAPI document is generated from it.
+ * (The request is the engine's own `plantInputSchema`.)
+ *
+ * Written with `zod/mini`, which tree-shakes to a few kB, because the browser parses with it.
+ * `mirrorOf<PlantResult>()` makes any drift between this schema and the engine's type a
+ * typecheck failure: when the engine's result changes, this file changes with it.
+ */
+import * as z from 'zod/mini';
+import { SERVICE_IDS, type PlantResult, type PlantWarning, type RunWarningCode } from '../engine';
+import { mirrorOf } from './mirror';
+
+const figure = z.number();
+
+const RUN_WARNING_CODES = [
+  'MATERIAL_ABOVE_SERVICE_LIMIT',
+  'MATERIAL_BELOW_SERVICE_LIMIT',
+  'SURFACE_ABOVE_TOUCH_LIMIT',
+  'SURFACE_BELOW_DEW_POINT',
+  'INSULATION_BELOW_CRITICAL_RADIUS',
+  'RAYLEIGH_BEYOND_CORRELATION',
+] as const satisfies readonly RunWarningCode[];
+
+const PLANT_WARNING_CODES = ['ILLUSTRATIVE_PRICES', 'COLD_LINES_NOT_PRICED', 'NO_SAVING'] as const satisfies readonly PlantWarning['code'][];
+
+const annualFiguresShape = {
+  heatW: figure,
+  annualHeatGJ: figure,
+  annualFuelGJ: figure,
+  annualFuelQuantity: figure,
+  annualChillerElectricityKWh: figure,
+  annualCost: figure,
+  annualCo2Kg: figure,
+  steamKgPerHour: figure,
+  steamKgPerYear: figure,
+};
+
+const annualFigures = z.object(annualFiguresShape);
+const faceProfile = z.object({ faceDiametersM: z.array(figure), faceTemperaturesC: z.array(figure) });
+const lifeCycle = z.object({ currentCost: figure, proposedCost: figure, netSaving: figure });
+const range = z.object({ low: figure, likely: figure, high: figure });
+
+const runEstimate = z.object({
+  id: z.string(),
+  label: z.string(),
+  service: z.enum(SERVICE_IDS),
+  cold: z.boolean(),
+  lengthM: figure,
+  operatingHoursPerYear: figure,
+  fluidTemperatureC: figure,
+  steamAbsolutePressureKPa: z.nullable(figure),
+  latentHeatJPerKg: z.nullable(figure),
+  air: z.object({ temperatureC: figure, speedMPerS: figure, relativeHumidityPercent: figure, dewPointC: figure }),
+  pipeOuterDiameterM: figure,
+  fittings: z.object({ valves: figure, flangePairs: figure, equivalentLengthM: figure }),
+  bare: z.object({ heatLossWPerM: figure, surfaceTemperatureC: figure }),
+  current: z.object({
+    ...annualFiguresShape,
+    state: z.enum(['bare', 'damaged', 'insulated']),
+    heatLossWPerM: figure,
+    surfaceTemperatureC: figure,
+    profile: faceProfile,
+  }),
+  proposed: z.object({
+    ...annualFiguresShape,
+    material: z.string(),
+    thicknessM: figure,
+    jacket: z.string(),
+    heatLossWPerM: figure,
+    surfaceTemperatureC: figure,
+    coverFittings: z.boolean(),
+    profile: faceProfile,
+  }),
+  savings: annualFigures,
+  installedCost: figure,
+  simplePaybackYears: z.nullable(figure),
+  lifeCycle,
+  economicThickness: z.nullable(z.object({ thicknessM: figure, lifeCycleCost: figure })),
+  thicknessSeries: z.array(
+    z.object({ thicknessM: figure, heatLossWPerM: figure, surfaceTemperatureC: figure, installedCost: figure, lifeCycleCost: figure }),
+  ),
+  personnelProtection: z.object({ applies: z.boolean(), touchLimitC: figure, leastThicknessM: z.nullable(figure) }),
+  condensationControl: z.object({ applies: z.boolean(), dewPointC: figure, marginK: figure, leastThicknessM: z.nullable(figure) }),
+  hazards: z.array(z.object({ code: z.enum(RUN_WARNING_CODES), message: z.string(), layer: z.optional(figure) })),
+});
+
+/** The engine's PlantResult, field for field. */
+export const plantResultSchema = mirrorOf<PlantResult>()(
+  z.object({
+    engineVersion: z.string(),
+    currency: z.string(),
+    runs: z.array(runEstimate),
+    totals: z.object({
+      current: annualFigures,
+      proposed: annualFigures,
+      savings: annualFigures,
+      installedCost: figure,
+      simplePaybackYears: z.nullable(figure),
+      lifeCycle,
+      cashFlow: z.array(z.object({ year: figure, cumulative: figure, cumulativePresentValue: figure })),
+    }),
+    range: z.object({
+      samples: figure,
+      seed: figure,
+      currentAnnualCost: range,
+      currentAnnualHeatGJ: range,
+      currentAnnualCo2Kg: range,
+      annualCostSaving: range,
+      annualHeatSavingGJ: range,
+      annualCo2SavingKg: range,
+      installedCost: range,
+      simplePaybackYears: z.nullable(range),
+    }),
+    assumptions: z.object({
+      fuel: z.string(),
+      fuelQuantityUnit: z.string(),
+      fuelCostPerGJ: figure,
+      boilerEfficiency: figure,
+      emissionFactor: z.object({ source: z.string(), label: z.string(), kgCo2PerGJ: figure }),
+      chillerCoefficientOfPerformance: figure,
+      electricityPricePerKWh: z.nullable(figure),
+      atmosphericPressureKPa: figure,
+      presentWorthFactor: figure,
+      priceTable: z.string(),
+      priceTableIllustrative: z.boolean(),
+      horizonYears: figure,
+      discountRatePercent: figure,
+      fuelEscalationPercent: figure,
+    }),
+    warnings: z.array(z.object({ code: z.enum(PLANT_WARNING_CODES), message: z.string() })),
+  }),
+);
+
+/** The answer of POST /api/estimate. */
+export const estimateAnswerSchema = z.object({
+  engineVersion: z.string(),
+  result: plantResultSchema,
+});
+
+export type EstimateAnswer = z.output<typeof estimateAnswerSchema>;
