@@ -164,7 +164,7 @@ function RunTable({ presented }: { presented: PresentedResult }) {
               <th scope="col">Heat {presented.hasColdLines ? 'lost or gained' : 'lost'} now</th>
               <th scope="col">Surface now</th>
               <th scope="col">Hazards</th>
-              <th scope="col">Proposed insulation</th>
+              <th scope="col">What to do</th>
               <th scope="col">Thickness that costs least</th>
               <th scope="col">Saves a year</th>
               <th scope="col">Installed cost</th>
@@ -204,12 +204,9 @@ function RunTable({ presented }: { presented: PresentedResult }) {
                   )}
                 </td>
                 <td>
-                  <span className="block">
-                    {run.proposed.thickness} of {run.proposed.material.toLowerCase()}
-                  </span>
-                  <span className="block text-graphite-soft">
-                    with {run.proposed.cover}; surface {run.proposed.surface}
-                  </span>
+                  <span className="block">{run.proposed.summary}</span>
+                  {run.proposed.work && <span className="block text-graphite-soft">surface {run.proposed.surface}</span>}
+                  <span className="block text-graphite-soft">{run.choice.reason}</span>
                 </td>
                 <td>{run.economicThickness ?? '—'}</td>
                 <td className="text-mineral font-extrabold">{run.saving}</td>

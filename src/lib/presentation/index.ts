@@ -9,7 +9,7 @@
  *   layout adds — a chart axis, a form's hint.
  * - The word tables for the engine's ids.
  */
-export { presentResult, type PresentedHazard, type PresentedResult, type PresentedRun } from './present';
+export { presentResult, type PresentedHazard, type PresentedNotice, type PresentedResult, type PresentedRun } from './present';
 export { headlineFor, presentHeadline, type PresentedFigure, type PresentedHeadline } from './headline';
 export {
   displayFormat,
@@ -25,6 +25,7 @@ export {
 export {
   HAZARD_FLAGS,
   MATERIAL_WORDS,
+  OPTION_WORDS,
   PLANT_NOTE_WORDS,
   SERVICE_WORDS,
   STATE_WORDS,

@@ -61,7 +61,25 @@ describe('presentResult: names and rows', () => {
     expect(shown.runs.map((r) => r.state)).toEqual(['Bare', 'Partly bare', 'Bare']);
     expect(shown.runs[2]?.today.heatLabel).toBe('Heat gained');
     expect(shown.runs[0]?.today.heatLabel).toBe('Heat lost');
-    expect(shown.runs[0]?.proposed.summary).toMatch(new RegExp(`^\\d[\\d½¼¾⅛⅜⅝⅞.]*${NBSP}in of [a-z ]+ with `));
+    expect(shown.runs.some((run) => run.proposed.work !== null)).toBe(true);
+    for (const run of shown.runs) {
+      const expected = run.proposed.work ? new RegExp(`^${run.choice.label}: \\d[\\d½¼¾⅛⅜⅝⅞.]*${NBSP}in of [a-z ]+ with `) : /^Leave as it is$/;
+      expect(run.proposed.summary).toMatch(expected);
+    }
+  });
+
+  it.each([
+    ['leave', 'Leave as it is'],
+    ['repair', 'Repair the bare parts'],
+    ['insulate', 'Insulate'],
+    ['add-layer', 'Add a layer'],
+    ['replace', 'Replace the insulation'],
+  ] as const)('names the choice %s “%s”, and says why in our words, the horizon in years', (option, label) => {
+    const forced = withRun(0, (run) => ({ ...run, proposed: { ...run.proposed, option }, choice: { code: 'LEAST_LIFE_CYCLE_COST', message: 'engine wording' } }));
+    const run = presentResult(forced, { system: 'US' }).runs[0];
+    expect(run?.choice.label).toBe(label);
+    expect(run?.choice.reason).toMatch(new RegExp(` costs least over ${result.assumptions.horizonYears} years of the choices that are safe\\.$`));
+    expect(run?.proposed.work === null).toBe(option === 'leave');
   });
 
   it('gives the steam line its gauge pressure in the reader’s units, and none to the others', () => {
@@ -99,7 +117,7 @@ describe('presentResult: money and ranges by one rule', () => {
     totals: { ...result.totals, simplePaybackYears: 1.21 },
   };
 
-  it.each(['US', 'SI'] as const)('in %s: the loss reads $4,230 a year, likely $2,900–$6,200', (system) => {
+  it.each(['US', 'SI'] as const)('in %s: the loss reads “4,230 dollars a year, likely 2,900–6,200”', (system) => {
     const { lossCost, saving, payback } = presentResult(pinned, { system }).headline;
     expect(lossCost.value).toBe('$4,230');
     expect(lossCost.per).toBe('a year');
@@ -129,14 +147,14 @@ describe('presentResult: money and ranges by one rule', () => {
 describe('presentResult: hazards in the reader’s units', () => {
   const hot = withRun(0, (run) => ({
     ...run,
-    current: { ...run.current, surfaceTemperatureC: 169.4 },
+    current: { ...run.current, designSurfaceTemperatureC: 169.4 },
     personnelProtection: { ...run.personnelProtection, touchLimitC: 60 },
     hazards: [{ code: 'SURFACE_ABOVE_TOUCH_LIMIT', message: 'engine wording, never shown' }],
   }));
 
   it.each([
-    { system: 'US', sentence: 'The surface runs at about 337~°F, above the 140~°F touch limit: it can burn on contact.' },
-    { system: 'SI', sentence: 'The surface runs at about 169~°C, above the 60~°C touch limit: it can burn on contact.' },
+    { system: 'US', sentence: 'On the hottest still day the surface reaches about 337~°F, above the 140~°F touch limit: it can burn on contact.' },
+    { system: 'SI', sentence: 'On the hottest still day the surface reaches about 169~°C, above the 60~°C touch limit: it can burn on contact.' },
   ] as const)('a touch burn in $system', ({ system, sentence }) => {
     const hazard = presentResult(hot, { system }).runs[0]?.hazards[0];
     expect(hazard).toMatchObject({ code: 'SURFACE_ABOVE_TOUCH_LIMIT', flag: 'Burns on touch', tone: 'heat', runLabel: 'Smoke-oven header' });
@@ -146,8 +164,8 @@ describe('presentResult: hazards in the reader’s units', () => {
   const sweating = (surfaceC: number, dewC: number) =>
     withRun(2, (run) => ({
       ...run,
-      current: { ...run.current, surfaceTemperatureC: surfaceC },
-      air: { ...run.air, dewPointC: dewC },
+      current: { ...run.current, designSurfaceTemperatureC: surfaceC },
+      condensationControl: { ...run.condensationControl, dewPointC: dewC },
       hazards: [{ code: 'SURFACE_BELOW_DEW_POINT', message: 'engine wording, never shown' }],
     }));
 
@@ -161,17 +179,71 @@ describe('presentResult: hazards in the reader’s units', () => {
     expect(hazard?.sentence).toContain(nb(expected));
   });
 
+  it.each([
+    { code: 'BARE_FITTINGS_ABOVE_TOUCH_LIMIT', run: 0, count: 2, expected: '2 bare fittings on this line run above the 140~°F touch limit on the hottest still day' },
+    { code: 'BARE_FITTINGS_BELOW_DEW_POINT', run: 2, count: 1, expected: '1 bare fitting on this line sits below the' },
+  ] as const)('bare fittings ($code) are counted and worded in the reader’s units', ({ code, run: index, count, expected }) => {
+    const changed = withRun(index, (run) => ({
+      ...run,
+      fittings: { ...run.fittings, uncoveredCount: count },
+      personnelProtection: { ...run.personnelProtection, touchLimitC: 60 },
+      hazards: [{ code, message: 'engine wording in °C, never shown' }],
+    }));
+    const hazard = presentResult(changed, { system: 'US' }).runs[index]?.hazards[0];
+    expect(hazard?.sentence).toContain(nb(expected));
+    expect(hazard?.sentence).not.toMatch(/°C/);
+  });
+
   it('never passes on an engine sentence in °C to a US reader', () => {
-    const shown = presentResult(hot, { system: 'US' });
-    for (const hazard of shown.hazards) expect(hazard.sentence).not.toMatch(/°C/);
+    const every = withRun(0, (run) => ({
+      ...run,
+      hazards: (['MATERIAL_ABOVE_SERVICE_LIMIT', 'MATERIAL_BELOW_SERVICE_LIMIT', 'INSULATION_BELOW_CRITICAL_RADIUS', 'RAYLEIGH_BEYOND_CORRELATION'] as const).map((code) => ({
+        code,
+        message: 'engine wording at 200 °C',
+      })),
+    }));
+    const hazards = presentResult(every, { system: 'US' }).runs[0]?.hazards ?? [];
+    expect(hazards).toHaveLength(4);
+    for (const hazard of hazards) expect(hazard.sentence).not.toMatch(/°C|engine wording/);
   });
 });
 
-describe('presentResult: notes and basis', () => {
-  it('words each plant note our own way', () => {
+describe('presentResult: notices and notes in the reader’s units', () => {
+  const noticed = {
+    ...withRun(1, (run) => ({
+      ...run,
+      notices: [
+        {
+          code: 'HOT_WATER_ABOVE_BOILING' as const,
+          path: 'runs.1.fluidTemperatureC',
+          message: 'engine wording at 110 °C',
+          params: { quantity: 'temperature' as const, limit: 'max' as const, limitSI: 100, givenSI: 110 },
+        },
+      ],
+    })),
+    warnings: [
+      ...result.warnings,
+      { code: 'INPUT_NOTICE' as const, message: 'engine wording at 110 °C', runId: 'loop', path: 'runs.1.fluidTemperatureC' },
+      { code: 'NO_STOCK_MEETS_NEED' as const, message: 'engine wording at 60 °C', runId: 'header' },
+    ],
+  };
+
+  it.each([
+    { system: 'US', temperatures: ['230~°F', '212~°F'], limit: '140~°F' },
+    { system: 'SI', temperatures: ['110~°C', '100~°C'], limit: '60~°C' },
+  ] as const)('in $system: a notice at its field, and the plant notes about it', ({ system, temperatures, limit }) => {
+    const shown = presentResult(noticed, { system });
+    const notice = shown.runs[1]?.notices[0];
+    expect(notice).toMatchObject({ path: 'runs.1.fluidTemperatureC', code: 'HOT_WATER_ABOVE_BOILING' });
+    expect(notice?.sentence).toBe(nb(`“Washdown hot water” carries water at ${temperatures[0]} above its boiling point of about ${temperatures[1]}: it would flash to steam. Check the temperature or give the line’s pressure.`));
+    expect(shown.notes).toContain(notice?.sentence);
+    expect(shown.notes.some((note) => note.startsWith('“Smoke-oven header”: no stock thickness') && note.includes(nb(limit)))).toBe(true);
+    expect(shown.notes.join(' ')).not.toMatch(/engine wording|undefined/);
+  });
+
+  it('says how the figures were reached', () => {
     const shown = presentResult(result, { system: 'US' });
-    expect(shown.notes).toHaveLength(result.warnings.length);
-    expect(shown.notes.join(' ')).not.toMatch(/undefined/);
     expect(shown.basis.ranges).toContain(`of ${result.range.samples} samples`);
+    expect(shown.runsWithWork).toBe(`${result.totals.runsWithWork} of 3 runs`);
   });
 });

@@ -66,7 +66,8 @@ export function lossByRun(result: PlantResult, f: DisplayFormat): ChartSpec {
 export function temperatureProfile(run: RunEstimate, f: DisplayFormat, touchLimitC: number): ChartSpec {
   const unit = displayUnit('temperature', f.system);
   const air = run.air.temperatureC;
-  const proposedFaces = run.proposed.profile.faceTemperaturesC;
+  // The island asks for the full answer (POST /api/estimate?detail=full), which carries the profiles.
+  const proposedFaces = run.proposed.profile?.faceTemperaturesC ?? [];
   const layerFaces = proposedFaces.length - 2;
   const labels = [
     'In the pipe',
@@ -75,7 +76,7 @@ export function temperatureProfile(run: RunEstimate, f: DisplayFormat, touchLimi
     ...Array.from({ length: layerFaces }, (_, i) => (layerFaces === 1 ? 'Insulation, outer face' : `Layer ${i + 1}, outer face`)),
     'Surrounding air',
   ];
-  const nowFaces = [...run.current.profile.faceTemperaturesC];
+  const nowFaces = [...(run.current.profile?.faceTemperaturesC ?? [])];
   while (nowFaces.length < proposedFaces.length) nowFaces.push(nowFaces[nowFaces.length - 1] ?? run.fluidTemperatureC);
   const limit = run.cold
     ? { label: `Dew point of the air (${f.temperature(run.air.dewPointC)})`, valueC: run.air.dewPointC, tone: 'frost' as const }
@@ -106,16 +107,17 @@ export function temperatureProfile(run: RunEstimate, f: DisplayFormat, touchLimi
 /** Life-cycle cost against thickness for one run's proposed material, the economic thickness marked. */
 export function lifeCycleByThickness(run: RunEstimate, f: DisplayFormat, horizonYears: number): ChartSpec {
   const economic = run.economicThickness?.thicknessM;
+  const thicknessSeries = run.thicknessSeries ?? [];
   return {
     kind: 'line',
     name: `Line chart: cost over ${horizonYears} years against insulation thickness for ${run.label}, with the economic thickness marked.`,
-    labels: run.thicknessSeries.map((option) => f.thickness(option.thicknessM)),
+    labels: thicknessSeries.map((option) => f.thickness(option.thicknessM)),
     series: [
-      { label: `Life-cycle cost (installed + ${horizonYears} years of heat)`, values: run.thicknessSeries.map((o) => o.lifeCycleCost), tone: 'graphite' },
-      { label: 'Installed cost alone', values: run.thicknessSeries.map((o) => o.installedCost), tone: 'graphite-soft', dashed: true },
+      { label: `Life-cycle cost (installed + ${horizonYears} years of heat)`, values: thicknessSeries.map((o) => o.lifeCycleCost), tone: 'graphite' },
+      { label: 'Installed cost alone', values: thicknessSeries.map((o) => o.installedCost), tone: 'graphite-soft', dashed: true },
       {
         label: 'Economic thickness',
-        values: run.thicknessSeries.map((o) => (economic !== undefined && Math.abs(o.thicknessM - economic) < 1e-9 ? o.lifeCycleCost : null)),
+        values: thicknessSeries.map((o) => (economic !== undefined && Math.abs(o.thicknessM - economic) < 1e-9 ? o.lifeCycleCost : null)),
         tone: 'mineral',
         pointsOnly: true,
       },
