@@ -65,7 +65,7 @@ describe('the OpenAPI document’s answers', () => {
     for (const { where, ref } of answers) expect(ref, where).toMatch(/^#\/components\/schemas\/\w+$/);
     const refs = answers.map((a) => a.ref as string);
     for (const ref of refs) expect(doc.components.schemas[ref.split('/').at(-1)!], ref).toBeDefined();
-    expect(new Set(refs)).toEqual(new Set(['#/components/schemas/Health', '#/components/schemas/EstimateAnswer', '#/components/schemas/Error', '#/components/schemas/AssessmentSubmitted']));
+    for (const id of ['Health', 'EstimateAnswer', 'Error', 'AssessmentSubmitted']) expect(refs).toContain(`#/components/schemas/${id}`);
   });
 
   it('describes the estimate’s result field for field: PlantResult lists every key a real result has', async () => {

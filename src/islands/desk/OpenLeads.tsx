@@ -8,7 +8,7 @@ import { getCoreRowModel, useReactTable, flexRender, type ColumnDef, type Sortin
 import { useMemo, useRef, useState, type FormEvent, type MouseEvent } from 'react';
 import { claimLead, fetchLeads } from '../../lib/desk-client';
 import type { LeadListResponse, OpenLead } from '../../schemas/leads';
-import { formatMoney } from '../../lib/units-display';
+import { formatMoney, formatMoneyRange } from '../../lib/presentation/format';
 import { ageText, queryString, spreadPercent, type DeskQuery } from './query';
 
 export interface Choice {
@@ -131,9 +131,7 @@ export default function OpenLeads({ initial, query: initialQuery, regions, plant
         cell: ({ row: { original: lead } }) => (
           <div>
             <span className="figure-num font-extrabold text-ember">{formatMoney(lead.annualLoss.likely, lead.currency)}</span>
-            <p className="figure-num text-sm text-graphite-soft">
-              {formatMoney(lead.annualLoss.low, lead.currency)}–{formatMoney(lead.annualLoss.high, lead.currency)}
-            </p>
+            <p className="figure-num text-sm text-graphite-soft">{formatMoneyRange(lead.annualLoss.low, lead.annualLoss.high, lead.currency).text}</p>
           </div>
         ),
       },

@@ -90,6 +90,6 @@ export function readingNote(reading: StoredResultReading): string | null {
     case 'other-version':
       return `These figures were worked out by an earlier version of the method (engine ${reading.computedBy}) and are shown as they were sent.`;
     case 'unreadable':
-      return 'The figures of this assessment can no longer be shown; your consultant works them out again from your answers.';
+      return 'The stored figures of this assessment can no longer be shown; they will be worked out again from its answers.';
   }
 }

@@ -275,3 +275,13 @@ export function displayFormat(options: DisplayOptions & { readonly currency?: st
   };
   return format;
 }
+
+/** Money alone, where no other quantity is shown (lists of leads): the same rule, whatever the units. */
+export function formatMoney(value: number, currency: string, locale?: string): string {
+  return displayFormat({ system: 'SI', currency, ...(locale ? { locale } : {}) }).money(value);
+}
+
+/** A money range alone, on the shared step of the rule: "$2,900–$6,200". */
+export function formatMoneyRange(low: number, high: number, currency: string, locale?: string): FormattedRange {
+  return displayFormat({ system: 'SI', currency, ...(locale ? { locale } : {}) }).moneyRange(low, high);
+}

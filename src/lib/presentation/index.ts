@@ -13,6 +13,8 @@ export { presentResult, type PresentedHazard, type PresentedNotice, type Present
 export { headlineFor, presentHeadline, type PresentedFigure, type PresentedHeadline } from './headline';
 export {
   displayFormat,
+  formatMoney,
+  formatMoneyRange,
   roundToStep,
   stepFor,
   MINUS,
