@@ -70,21 +70,22 @@ const range = z.object({ low: figure, likely: figure, high: figure });
 
 const runOption = z.object({
   kind: z.enum(OPTION_KINDS),
-  material: z.nullable(z.string()),
   thicknessM: z.nullable(figure),
-  jacket: z.nullable(z.string()),
-  lengthInsulatedM: figure,
-  fittingCovers: figure,
   installedCost: figure,
-  annualHeatGJ: figure,
   annualCost: figure,
-  annualCo2Kg: figure,
-  annualCostSaving: figure,
   simplePaybackYears: z.nullable(figure),
   lifeCycleCost: figure,
-  designSurfaceTemperatureC: figure,
   meetsTouchLimit: z.boolean(),
   meetsDewPoint: z.boolean(),
+  // Full detail only.
+  material: z.optional(z.nullable(z.string())),
+  jacket: z.optional(z.nullable(z.string())),
+  lengthInsulatedM: z.optional(figure),
+  fittingCovers: z.optional(figure),
+  annualHeatGJ: z.optional(figure),
+  annualCo2Kg: z.optional(figure),
+  annualCostSaving: z.optional(figure),
+  designSurfaceTemperatureC: z.optional(figure),
 });
 
 const runEstimate = z.object({
