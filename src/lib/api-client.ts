@@ -37,6 +37,9 @@ function fallbackMessage(status: number): string {
   return 'The request was refused.';
 }
 
+/** The answer schemas, imported with the first answer rather than with the page. */
+const answers = () => import('../schemas/answers');
+
 const NO_ANSWER: ApiFailure = {
   ok: false,
   status: 0,
@@ -89,7 +92,7 @@ export async function send<T>(url: string, init: RequestInit, answerSchema: Answ
       issues: [],
     };
   }
-  const errors = await import('../schemas/api-error').catch(() => null);
+  const errors = await answers().catch(() => null);
   if (!errors) return NO_ANSWER;
   // A proxy's HTML error page or an empty body still yields a sentence for the person.
   const error = errors.apiErrorSchema.safeParse(body);
@@ -113,7 +116,7 @@ export function requestEstimate(input: PlantInput, signal?: AbortSignal): Promis
       body: JSON.stringify(input),
       ...(signal ? { signal } : {}),
     },
-    () => import('../schemas/estimate').then((m) => m.estimateAnswerSchema),
+    () => answers().then((m) => m.estimateAnswerSchema),
   );
 }
 
@@ -125,7 +128,7 @@ export function submitAssessment(form: FormData, idempotencyKey: string): Promis
   return send(
     '/api/assessments',
     { method: 'POST', headers: { 'idempotency-key': idempotencyKey, accept: 'application/json' }, body: form },
-    () => import('../schemas/assessment-answer').then((m) => m.submitAssessmentAnswerSchema),
+    () => answers().then((m) => m.submitAssessmentAnswerSchema),
   );
 }
 

@@ -8,7 +8,7 @@ import { getCoreRowModel, useReactTable, flexRender, type ColumnDef, type Sortin
 import { useMemo, useRef, useState, type FormEvent, type MouseEvent } from 'react';
 import { claimLead, fetchLeads } from '../../lib/desk-client';
 import type { LeadListResponse, OpenLead } from '../../schemas/leads';
-import { formatMoney, formatMoneyRange } from '../../lib/presentation/format';
+import { formatMoney, formatMoneyRange } from '../../lib/presentation/money';
 import { ageText, queryString, spreadPercent, type DeskQuery } from './query';
 
 export interface Choice {

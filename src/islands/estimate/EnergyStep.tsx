@@ -1,7 +1,7 @@
 /** Step 2: what the boiler burns, what it costs in the person's own unit, and how efficiently. */
 import { useFormContext, useWatch } from 'react-hook-form';
 import { FUELS, type FuelId, type FuelPriceUnit } from '../../engine';
-import { displayFormat } from '../../lib/presentation';
+import { formatNumber } from '../../lib/presentation/rounding';
 import { CURRENCIES, defaultPriceUnit, fuelById, type DraftValues } from './draft';
 import { GuessToggle, NumberField, SelectField, useUnitSystem } from './fields';
 
@@ -32,7 +32,7 @@ export function EnergyStep() {
   const priceUnit = useWatch<DraftValues, 'estimate.energy.priceUnit'>({ name: 'estimate.energy.priceUnit' });
   const fuel = fuelById(fuelId) ?? FUELS[0];
   const unitName = PRICE_UNIT_NAMES[priceUnit ?? fuel.defaultPriceUnit];
-  const efficiencyPercent = displayFormat({ system, currency }).number(fuel.defaultBoilerEfficiency * 100);
+  const efficiencyPercent = formatNumber(fuel.defaultBoilerEfficiency * 100);
 
   return (
     <div className="step-body">

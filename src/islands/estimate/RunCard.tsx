@@ -11,7 +11,7 @@ import {
   type PipeStandard,
   type ServiceId,
 } from '../../engine';
-import { displayFormat } from '../../lib/presentation';
+import { formatQuantity, formatTemperature } from '../../lib/presentation/rounding';
 import { displayUnit, formatForInput, type DisplayQuantity, type UnitSystem } from '../../lib/units-display';
 import { existingInsulationDefaults, pipeStandard, serviceCondition, type DraftValues } from './draft';
 import { ChoiceField, CheckField, GuessToggle, NumberField, SelectField, TextField, useHasErrorUnder, useUnitSystem, type Option } from './fields';
@@ -47,14 +47,14 @@ const STANDARD_NAMES: Record<string, string> = {
 /** "NPS 2 · 2.375 in OD", "DN50 · 60.3 mm OD", "3/4 in · 0.875 in OD". */
 function sizeLabel(standard: PipeStandard, entry: PipeSizeEntry, system: UnitSystem): string {
   // Four figures: people match the catalogue's own dimension ("2.375 in").
-  const od = displayFormat({ system }).quantity(entry.outerDiameterM, 'diameter', 4);
+  const od = formatQuantity(entry.outerDiameterM, 'diameter', system, 4);
   if (standard.id.startsWith('ASME')) return `NPS ${entry.size} · ${od} OD`;
   if (standard.id.startsWith('ASTM')) return `${entry.size} in · ${od} OD`;
   return `${entry.size} · ${od} OD`;
 }
 
 function scheduleLabel(standard: PipeStandard, key: string, wallM: number, system: UnitSystem): string {
-  const wall = displayFormat({ system }).quantity(wallM, 'thickness');
+  const wall = formatQuantity(wallM, 'thickness', system);
   if (standard.id === 'EN-10220') return `${wall} wall`;
   if (standard.id.startsWith('ASTM')) return `Type ${key} · ${wall} wall`;
   const named: Record<string, string> = { STD: 'STD (standard weight)', XS: 'XS (extra strong)' };
@@ -134,7 +134,7 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
 
   const insulationOptions: Option[] = INSULATION_MATERIALS.map((m) => ({
     value: m.id,
-    label: `${m.name} (${displayFormat({ system }).temperature(m.serviceMinC)} to ${displayFormat({ system }).temperature(m.serviceMaxC)})`,
+    label: `${m.name} (${formatTemperature(m.serviceMinC, system)} to ${formatTemperature(m.serviceMaxC, system)})`,
   }));
   const jacketOptions: Option[] = JACKETS.map((j) => ({ value: j.id, label: j.name }));
   const proposalHasError = useHasErrorUnder(`${base}.proposed`);

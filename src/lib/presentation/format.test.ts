@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { displayFormat, NBSP, roundToStep, stepFor } from './format';
+import { displayFormat } from './format';
+import { NBSP, roundToStep, stepFor } from './rounding';
 
 const us = displayFormat({ system: 'US', currency: 'USD' });
 const si = displayFormat({ system: 'SI', currency: 'USD' });

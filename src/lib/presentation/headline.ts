@@ -4,7 +4,8 @@
  * (the rest of the presentation loads with the full results).
  */
 import type { PlantResult } from '../../engine';
-import { displayFormat, NBSP, type DisplayFormat, type DisplayOptions, type FormattedRange } from './format';
+import { displayFormat, type DisplayFormat, type DisplayOptions } from './format';
+import { NBSP, type FormattedRange } from './rounding';
 
 /** One headline figure, ready to lay out. */
 export interface PresentedFigure {

@@ -5,25 +5,26 @@
  * - {@link presentResult}: a PlantResult → names, headline figures with ranges, run rows,
  *   hazards in the reader's units, notes and basis sentences.
  * - {@link headlineFor}: the headline figures alone (the live summary strip, lists).
- * - {@link displayFormat}: the formatters behind it (the one rounding rule), for anything a
- *   layout adds — a chart axis, a form's hint.
+ * - {@link displayFormat}: the formatters behind it, for anything a layout adds (a chart axis).
+ * - ./rounding: the one rounding rule and the small formatters a form's hints need
+ *   (formatNumber, formatQuantity, formatTemperature); ./money: money alone (lists).
  * - The word tables for the engine's ids.
  */
 export { presentResult, type PresentedHazard, type PresentedNotice, type PresentedResult, type PresentedRun } from './present';
 export { headlineFor, presentHeadline, type PresentedFigure, type PresentedHeadline } from './headline';
+export { displayFormat, type DisplayFormat, type DisplayOptions } from './format';
+export { formatMoney, formatMoneyRange } from './money';
 export {
-  displayFormat,
-  formatMoney,
-  formatMoneyRange,
+  formatNumber,
+  formatQuantity,
+  formatTemperature,
   roundToStep,
   stepFor,
   MINUS,
   NBSP,
   ROUNDING,
-  type DisplayFormat,
-  type DisplayOptions,
   type FormattedRange,
-} from './format';
+} from './rounding';
 export {
   HAZARD_FLAGS,
   MATERIAL_WORDS,

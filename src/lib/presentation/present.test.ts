@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { estimatePlant, type PlantInput, type PlantResult, type RunEstimate } from '../../engine';
-import { NBSP } from './format';
+import { NBSP } from './rounding';
 import { presentResult } from './present';
 
 const nb = (text: string) => text.replace(/~/g, NBSP);

@@ -7,7 +7,8 @@
  * converts or names anything itself, and no engine sentence (written in SI) reaches a reader.
  */
 import type { InputNotice, OptionKind, PlantResult, PlantWarning, RunEstimate } from '../../engine';
-import { displayFormat, NBSP, type DisplayFormat, type DisplayOptions } from './format';
+import { displayFormat, type DisplayFormat, type DisplayOptions } from './format';
+import { NBSP } from './rounding';
 import { presentHeadline, type PresentedHeadline } from './headline';
 import { HAZARD_FLAGS, materialWords, OPTION_WORDS, PLANT_NOTE_WORDS, serviceWords, STATE_WORDS, surfaceWords } from './words';
 
