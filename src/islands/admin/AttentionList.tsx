@@ -8,7 +8,7 @@ import { useState, type FormEvent } from 'react';
 import { assignLead, fetchAttention, junkLead, saveSettings } from '../../lib/admin-client';
 import type { AttentionLead, AttentionResponse } from '../../schemas/admin';
 import { attentionReasonText, waitedText } from '../../lib/admin/words';
-import { formatMoney } from '../../lib/units-display';
+import { formatMoney } from '../../lib/presentation/money';
 
 type Message = { tone: 'good' | 'error'; text: string } | null;
 

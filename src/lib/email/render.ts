@@ -134,13 +134,13 @@ export async function renderEmail(email: OutgoingEmail): Promise<RenderedEmail> 
     case 'password-reset':
       return { to: email.to, subject: passwordResetSubject, ...(await both(createElement(PasswordReset, email.props))) };
     case 'admin-unrouted': {
-      const { found, result, money } = await loadAssessment(email.props.assessmentId);
+      const { found, presented } = await loadAssessment(email.props.assessmentId);
       const props = {
         adminName: email.props.adminName,
         reference: found.reference,
         plantType: plantTypeName(found.plantType),
         place: `${found.postalCode} (${found.countryCode})`,
-        annualCost: money(result.totals.current.annualCost),
+        annualCost: presented ? presented.headline.lossCost.value : null,
         leadUrl: `${appBaseUrl()}/desk/leads/${found.id}`,
         attentionUrl: `${appBaseUrl()}/admin/attention`,
       };

@@ -71,7 +71,8 @@ export interface UnroutedNoticeProps {
   reference: string;
   plantType: string;
   place: string;
-  annualCost: string;
+  /** From the shared presentation; null when the stored figures cannot be shown. */
+  annualCost: string | null;
   leadUrl: string;
   attentionUrl: string;
 }
@@ -92,7 +93,7 @@ export function UnroutedNotice(p: UnroutedNoticeProps) {
         <Text style={{ ...textStyle, margin: '0 0 4px' }}>
           <strong>{p.reference}</strong> · {p.plantType} · {p.place}
         </Text>
-        <Text style={{ ...textStyle, margin: 0 }}>Estimated loss {p.annualCost} a year.</Text>
+        {p.annualCost && <Text style={{ ...textStyle, margin: 0 }}>Estimated loss {p.annualCost} a year.</Text>}
       </Section>
       <Text style={textStyle}>Hand it to a consultant, or add the postal code to a region: it is then routed at once.</Text>
       <Button href={p.attentionUrl} style={buttonStyle}>
