@@ -18,13 +18,30 @@ for (const host of (process.env.LAGWISE_ALLOWED_HOSTS ?? '').split(',')) if (hos
 export default defineConfig({
   site: publicUrl.origin,
   output: 'static',
-  adapter: node({ mode: 'standalone' }),
+  // Our server (src/server/serve.ts) runs the built handler; the static pages' CSP goes to a
+  // headers file the handler sends with each page.
+  adapter: node({ mode: 'standalone', experimentalStaticHeaders: true }),
   integrations: [react()],
   server: {
     host: process.env.HOST ?? '127.0.0.1',
     port: Number(process.env.PORT ?? 4321),
   },
   security: { checkOrigin: true, allowedDomains: [...allowedHosts].map((hostname) => ({ hostname })) },
+  // Astro hashes every script and style it emits into the page's Content-Security-Policy; no
+  // inline code runs without its hash. The server adds frame-ancestors and friends as a header.
+  experimental: {
+    csp: {
+      directives: [
+        "default-src 'self'",
+        "img-src 'self' data: blob:",
+        "font-src 'self'",
+        "connect-src 'self'",
+        "object-src 'none'",
+        "base-uri 'none'",
+        "form-action 'self'",
+      ],
+    },
+  },
   vite: {
     plugins: [tailwindcss()],
   },

@@ -1,14 +1,21 @@
-import { defineMiddleware } from 'astro:middleware';
-import { describeForLog } from './db/errors';
+import { defineMiddleware, sequence } from 'astro:middleware';
+import { describeForLog, isDatabaseUnavailable } from './db/errors';
 import { checkArea, REFUSAL_PAGE } from './lib/areas';
+import { hardening } from './lib/hardening';
+import { outageResponse } from './lib/outage';
 import { sessionFromHeaders } from './lib/session';
+
+/** A signed-in visitor (better-auth's session cookie) during an outage gets the outage page, not a sign-in form. */
+function carriesSession(headers: Headers): boolean {
+  return /(?:^|;\s*)(?:__Secure-)?better-auth\.session_token=/.test(headers.get('cookie') ?? '');
+}
 
 /**
  * Fills Astro.locals with the signed-in user on on-demand routes (prerendered pages have no
  * request), then lets a request into a guarded area (src/lib/areas.ts) only with the permission
  * that area needs.
  */
-export const onRequest = defineMiddleware(async (context, next) => {
+const session = defineMiddleware(async (context, next) => {
   context.locals.user = null;
   context.locals.sessionId = null;
   if (context.isPrerendered || context.url.pathname.startsWith('/api/auth/') || context.url.pathname === '/api/health') {
@@ -22,6 +29,7 @@ export const onRequest = defineMiddleware(async (context, next) => {
       context.locals.sessionId = found.sessionId;
     }
   } catch (error) {
+    if (isDatabaseUnavailable(error) && carriesSession(context.request.headers)) return outageResponse(context.url.pathname);
     // A session store outage must not take public pages down; the visitor is treated as signed out.
     console.error(`[session] lookup failed: ${describeForLog(error)}`);
     lookupFailed = true;
@@ -31,3 +39,6 @@ export const onRequest = defineMiddleware(async (context, next) => {
   if (verdict.kind === 'refuse-page') return next(REFUSAL_PAGE);
   return next();
 });
+
+/** Hardening first (outages, limits, origin, headers: src/lib/hardening), then the session. */
+export const onRequest = sequence(hardening, session);

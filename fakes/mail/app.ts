@@ -200,6 +200,9 @@ export interface MailFake {
 export function createMailFake(options: { dataDir: string }): MailFake {
   const store = new MailStore(options.dataDir);
   let down = false;
+  /** The hang switch: API calls are held open, never answered, as a frozen provider connection is. */
+  let hanging = false;
+  const held = new Set<ServerResponse>();
   let lastCreated = 0;
   const inFlight = new Set<string>();
 
@@ -352,6 +355,7 @@ export function createMailFake(options: { dataDir: string }): MailFake {
   }
 
   const outageSchema = z.object({ down: z.boolean() });
+  const hangSchema = z.object({ hang: z.boolean() });
 
   async function fakeControl(req: IncomingMessage, res: ServerResponse, segments: string[], url: URL): Promise<void> {
     const method = req.method ?? 'GET';
@@ -372,6 +376,20 @@ export function createMailFake(options: { dataDir: string }): MailFake {
       down = parsed.data.down;
       console.log(`mail fake: outage switch ${down ? 'ON, Resend API answers 503' : 'OFF'}`);
       return sendJson(res, 200, { down });
+    }
+    if (name === 'hang' && id === undefined) {
+      if (method === 'GET') return sendJson(res, 200, { hang: hanging, held: held.size });
+      if (method !== 'POST') return sendJson(res, 405, { statusCode: 405, name: 'method_not_allowed', message: 'Method not allowed' });
+      const parsed = hangSchema.safeParse(await readJson(req));
+      if (!parsed.success) {
+        return sendJson(res, 422, { statusCode: 422, name: 'validation_error', message: 'Send {"hang": true} or {"hang": false}.' });
+      }
+      hanging = parsed.data.hang;
+      // Switching off drops the held calls, as a provider's connection reset would.
+      if (!hanging) for (const response of held) response.destroy();
+      if (!hanging) held.clear();
+      console.log(`mail fake: hang switch ${hanging ? 'ON, Resend API calls are never answered' : 'OFF'}`);
+      return sendJson(res, 200, { hang: hanging });
     }
     if (name === 'messages' && id === undefined) {
       if (method === 'DELETE') return sendJson(res, 200, { deleted: store.clear() });
@@ -432,6 +450,11 @@ export function createMailFake(options: { dataDir: string }): MailFake {
     if (segments[0] === 'favicon.ico') {
       res.writeHead(404);
       res.end();
+      return;
+    }
+    if (hanging) {
+      held.add(res);
+      res.on('close', () => held.delete(res));
       return;
     }
     const origin = `http://${req.headers.host ?? 'localhost'}`;

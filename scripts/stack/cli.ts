@@ -93,6 +93,8 @@ async function bringUpDatabase(config: StackConfig, { fresh }: { fresh: boolean 
   await migrateDatabase(databaseUrl(config), {
     migrationsFolder: path.join(projectRoot, 'drizzle'),
     retryDelaySeconds: config.profile === 'test' ? 1 : 5,
+    // A job whose worker was killed comes back this soon (tests kill workers on purpose).
+    jobExpireSeconds: config.profile === 'test' ? 8 : 300,
   });
   say('migrations applied');
   const [command, args] = tsxCommand('scripts/seed.ts');

@@ -14,7 +14,7 @@ import { StackError } from './errors.ts';
 
 const isRoot = process.getuid?.() === 0;
 
-function findBinDir(): string | undefined {
+export function findBinDir(): string | undefined {
   const base = '/usr/lib/postgresql';
   if (existsSync(base)) {
     const versions = readdirSync(base)
@@ -154,7 +154,7 @@ export async function startPostgres(binDir: string, config: StackConfig, supervi
   }
   const [cmd, args] = asOwner(path.join(binDir, 'postgres'), ['-D', dataDir, '-p', String(config.pgPort)]);
   const logFile = path.join(config.stateDir, 'postgres.log');
-  const child = supervisor.start({ name: 'postgres', command: cmd, args, logFile, stopSignal: 'SIGINT' });
+  const child = supervisor.start({ name: 'postgres', command: cmd, args, logFile, stopSignal: 'SIGINT', restart: true });
   await waitForPostgres(config, () => child.exitCode !== null, logFile);
 }
 

@@ -54,9 +54,13 @@ export function appEnvironment(config: StackConfig): NodeJS.ProcessEnv {
   if (config.profile === 'test') {
     // Tests wait for retried mail; the production default backs off from 5 s.
     env.LAGWISE_JOB_POLL_SECONDS = '0.5';
+    env.LAGWISE_JOB_MAINTENANCE_SECONDS = '2';
     // Every test submits from 127.0.0.1; the limit itself has its own test with its own numbers.
     env.LAGWISE_SUBMISSIONS_PER_ADDRESS_PER_HOUR = '100000';
     env.LAGWISE_SUBMISSIONS_PER_EMAIL_PER_HOUR = '100000';
+    env.LAGWISE_REQUEST_LIMIT_MULTIPLIER = '1000';
+    // A hung mail call fails this soon (the mail-timeout test hangs the fake on purpose).
+    env.LAGWISE_MAIL_TIMEOUT_MS = '2000';
   }
   return env;
 }
@@ -64,6 +68,10 @@ export function appEnvironment(config: StackConfig): NodeJS.ProcessEnv {
 /** Tests keep service output in files (shown when something fails); the demo echoes it. */
 function logFileFor(config: StackConfig, name: string): string | undefined {
   return config.profile === 'test' ? path.join(config.stateDir, `${name}.log`) : undefined;
+}
+
+function withRestart(spec: ServiceSpec): ServiceSpec {
+  return { ...spec, restart: true };
 }
 
 export function tsxCommand(script: string): [string, string[]] {
@@ -77,16 +85,16 @@ function tsxService(config: StackConfig, name: string, script: string, env: Node
 }
 
 export function mailFakeSpec(config: StackConfig): ServiceSpec {
-  return tsxService(config, 'mail', 'fakes/mail/server.ts', {
+  return withRestart(tsxService(config, 'mail', 'fakes/mail/server.ts', {
     ...process.env,
     FAKE_MAIL_PORT: String(config.mailPort),
     FAKE_MAIL_HOST: '127.0.0.1',
     FAKE_MAIL_DATA_DIR: path.join(config.stateDir, 'mail'),
-  });
+  }));
 }
 
 export function storageFakeSpec(config: StackConfig): ServiceSpec {
-  return tsxService(config, 's3', 'fakes/s3/server.ts', {
+  return withRestart(tsxService(config, 's3', 'fakes/s3/server.ts', {
     ...process.env,
     FAKE_S3_PORT: String(config.s3Port),
     FAKE_S3_HOST: '127.0.0.1',
@@ -94,20 +102,14 @@ export function storageFakeSpec(config: StackConfig): ServiceSpec {
     FAKE_S3_BUCKETS: 'lagwise-uploads',
     FAKE_S3_ACCESS_KEY_ID: config.secrets.s3AccessKeyId,
     FAKE_S3_SECRET_ACCESS_KEY: config.secrets.s3SecretAccessKey,
-  });
+  }));
 }
 
+/** Our server (src/server/serve.ts) around Astro's built handler. */
 export function webServerSpec(config: StackConfig): ServiceSpec {
-  return {
-    name: 'web',
-    command: process.execPath,
-    args: [path.join(projectRoot, 'dist', 'server', 'entry.mjs')],
-    cwd: projectRoot,
-    env: appEnvironment(config),
-    logFile: logFileFor(config, 'web'),
-  };
+  return { ...tsxService(config, 'web', 'src/server/serve.ts', appEnvironment(config)), restart: true };
 }
 
 export function workerSpec(config: StackConfig): ServiceSpec {
-  return tsxService(config, 'worker', 'src/worker.ts', appEnvironment(config));
+  return { ...tsxService(config, 'worker', 'src/worker.ts', appEnvironment(config)), restart: true };
 }

@@ -19,13 +19,28 @@ function databaseUrl(): string {
   return url;
 }
 
-export function getPool(): pg.Pool {
-  pool ??= new pg.Pool({
-    connectionString: databaseUrl(),
-    max: Number(process.env.DATABASE_POOL_SIZE ?? 10),
-    connectionTimeoutMillis: 5_000,
-    idleTimeoutMillis: 30_000,
+/**
+ * A connection that breaks (PostgreSQL restarted, a backend killed) emits 'error' on its
+ * client, and on the pool while it is idle. Unheard, either event ends the process; heard,
+ * the broken connection is dropped and the next query opens a fresh one.
+ */
+function listenForBrokenConnections(created: pg.Pool): pg.Pool {
+  created.on('error', (error) => console.error(`[db] idle connection lost: ${error.message}`));
+  created.on('connect', (client) => {
+    client.on('error', (error) => console.error(`[db] connection lost: ${error.message}`));
   });
+  return created;
+}
+
+export function getPool(): pg.Pool {
+  pool ??= listenForBrokenConnections(
+    new pg.Pool({
+      connectionString: databaseUrl(),
+      max: Number(process.env.DATABASE_POOL_SIZE ?? 10),
+      connectionTimeoutMillis: 5_000,
+      idleTimeoutMillis: 30_000,
+    }),
+  );
   return pool;
 }
 

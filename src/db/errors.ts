@@ -20,11 +20,41 @@ export function isUniqueViolation(error: unknown, constraintPart: string): boole
   return pg?.code === '23505' && (pg.constraint ?? '').includes(constraintPart);
 }
 
-const UNAVAILABLE = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', '57P01', '57P03', '53300']);
+/**
+ * PostgreSQL and socket codes that mean "the database is not there just now": connection
+ * failures (08…), shutdown and start-up (57P…), too many connections, and the socket errors
+ * of a server that went away.
+ */
+const UNAVAILABLE_CODES = new Set([
+  'ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', 'ENOTFOUND', 'EAI_AGAIN', 'EHOSTUNREACH', 'ENETUNREACH',
+  '08000', '08001', '08003', '08004', '08006', '57P01', '57P02', '57P03', '53300', '53400',
+]);
 
+/** node-postgres reports these without a code. */
+const UNAVAILABLE_MESSAGES = [
+  /Connection terminated/i,
+  /timeout exceeded when trying to connect/i,
+  /not queryable/i,
+  /Client was closed and is not queryable/i,
+  /Cannot use a pool after calling end/i,
+  /the database system is (shutting down|starting up|in recovery mode)/i,
+  /terminating connection due to administrator command/i,
+];
+
+/** True when the error (or one it wraps) says the database cannot be reached right now. */
 export function isDatabaseUnavailable(error: unknown): boolean {
-  const pg = pgErrorOf(error);
-  return pg?.code !== undefined && UNAVAILABLE.has(pg.code);
+  let current: unknown = error;
+  for (let depth = 0; depth < 6 && current && typeof current === 'object'; depth += 1) {
+    const candidate = current as { code?: unknown; message?: unknown; cause?: unknown; errors?: unknown };
+    if (typeof candidate.code === 'string' && UNAVAILABLE_CODES.has(candidate.code)) return true;
+    if (typeof candidate.message === 'string' && UNAVAILABLE_MESSAGES.some((pattern) => pattern.test(candidate.message as string))) {
+      return true;
+    }
+    // Node's happy-eyeballs connect wraps each refused address in an AggregateError.
+    if (Array.isArray(candidate.errors) && candidate.errors.some((inner) => isDatabaseUnavailable(inner))) return true;
+    current = candidate.cause;
+  }
+  return false;
 }
 
 /**

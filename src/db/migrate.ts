@@ -11,7 +11,7 @@ import { queuePolicies } from '../lib/jobs/names';
 
 export async function migrateDatabase(
   databaseUrl: string,
-  { migrationsFolder = path.resolve('drizzle'), retryDelaySeconds = 5 } = {},
+  { migrationsFolder = path.resolve('drizzle'), retryDelaySeconds = 5, jobExpireSeconds = 300 } = {},
 ): Promise<void> {
   const pool = new pg.Pool({ connectionString: databaseUrl, max: 2 });
   try {
@@ -22,7 +22,7 @@ export async function migrateDatabase(
   const boss = new PgBoss({ connectionString: databaseUrl, max: 2, supervise: false, schedule: false });
   await boss.start();
   try {
-    for (const [name, policy] of Object.entries(queuePolicies(retryDelaySeconds))) {
+    for (const [name, policy] of Object.entries(queuePolicies(retryDelaySeconds, jobExpireSeconds))) {
       const queue = { name, ...policy };
       if (await boss.getQueue(name)) await boss.updateQueue(name, queue);
       else await boss.createQueue(name, queue);

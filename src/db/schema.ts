@@ -131,6 +131,8 @@ export const assessments = pgTable(
     hazardRunCount: integer('hazard_run_count').notNull(),
     /** Services present among the runs (engine service ids), sorted, each once. */
     services: text('services').array().notNull(),
+    /** SHA-256 of what was submitted under the key: the same key with another body is refused. */
+    idempotencyFingerprint: text('idempotency_fingerprint'),
     ...timestamps,
   },
   (t) => [
@@ -298,6 +300,17 @@ export const rateLimitWindows = pgTable(
   },
   (t) => [primaryKey({ columns: [t.key, t.windowStart] })],
 );
+
+/**
+ * Wrong-password tries, one row per key (`account:<email>` or `client:<address>`): how many in
+ * a row, and until when further tries are refused without checking the password.
+ */
+export const signInThrottles = pgTable('sign_in_throttles', {
+  key: text('key').primaryKey(),
+  failures: integer('failures').notNull().default(0),
+  lockedUntil: timestamp('locked_until', { withTimezone: true }),
+  lastFailureAt: timestamp('last_failure_at', { withTimezone: true }).notNull(),
+});
 
 export const regionsRelations = relations(regions, ({ many }) => ({
   prefixes: many(regionPostalPrefixes),

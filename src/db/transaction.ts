@@ -4,6 +4,7 @@
  */
 import { drizzle } from 'drizzle-orm/node-postgres';
 import { getPool, type Database } from './client';
+import { isDatabaseUnavailable } from './errors';
 import * as schema from './schema';
 
 /** pg-boss's `db` option: runs its SQL inside our transaction. */
@@ -13,6 +14,7 @@ export interface SqlRunner {
 
 export async function inTransaction<T>(work: (tx: Database, sqlRunner: SqlRunner) => Promise<T>): Promise<T> {
   const client = await getPool().connect();
+  let broken: Error | undefined;
   try {
     await client.query('BEGIN');
     const tx = drizzle(client, { schema });
@@ -20,9 +22,11 @@ export async function inTransaction<T>(work: (tx: Database, sqlRunner: SqlRunner
     await client.query('COMMIT');
     return result;
   } catch (error) {
-    await client.query('ROLLBACK').catch(() => {});
+    // A connection that broke mid-transaction is dropped rather than handed to the next caller.
+    if (isDatabaseUnavailable(error)) broken = error instanceof Error ? error : new Error(String(error));
+    else await client.query('ROLLBACK').catch(() => {});
     throw error;
   } finally {
-    client.release();
+    client.release(broken);
   }
 }

@@ -41,6 +41,8 @@ export function authOptions() {
     verification: { storeIdentifier: { default: 'plain', overrides: { 'reset-password:': 'hashed' } } },
     session: { expiresIn: 60 * 60 * 24 * 14, updateAge: 60 * 60 * 24 },
     advanced: {
+      // Behind TLS, cookies go only over TLS (and take the __Secure- prefix).
+      useSecureCookies: appBaseUrl().startsWith('https:'),
       database: { generateId: 'uuid' },
       ipAddress: { ipAddressHeaders: ['x-lagwise-client-address'] },
     },

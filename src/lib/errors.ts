@@ -20,6 +20,9 @@ export type DomainErrorCode =
   | 'SERVICE_UNAVAILABLE';
 
 export class DomainError extends Error {
+  /** For RATE_LIMITED and SERVICE_UNAVAILABLE: when to try again (sent as Retry-After). */
+  retryAfterSeconds?: number;
+
   constructor(
     readonly code: DomainErrorCode,
     message: string,
@@ -29,5 +32,11 @@ export class DomainError extends Error {
   ) {
     super(message);
     this.name = 'DomainError';
+  }
+
+  /** The same error, carrying when to try again. */
+  withRetryAfter(seconds: number): this {
+    this.retryAfterSeconds = Math.max(1, Math.ceil(seconds));
+    return this;
   }
 }

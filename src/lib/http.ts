@@ -10,6 +10,9 @@ import { describeForLog, isDatabaseUnavailable } from '../db/errors';
 import type { ApiErrorBody, ApiIssue } from '../schemas/api-error';
 import type { Frozen } from '../schemas/mirror';
 import { DomainError, type DomainErrorCode } from './errors';
+import { outageJson } from './outage';
+import { isBodyTooLarge } from '../server/body-limits';
+import { findUnsafeText } from '../schemas/text';
 
 /** One field-level problem, as declared in src/schemas/api-error.ts (range issues carry their params). */
 export type Issue = ApiIssue;
@@ -106,6 +109,8 @@ export async function parseJsonBody<S extends z.ZodType>(request: Request, schem
 }
 
 export function parseValue<S extends z.ZodType>(schema: S, raw: unknown): z.output<S> {
+  const unsafe = findUnsafeText(raw);
+  if (unsafe.length > 0) throw new HttpResponseError(validationFailed(unsafe));
   const parsed = schema.safeParse(raw);
   if (!parsed.success) throw new HttpResponseError(validationFailed(issuesOf(parsed.error)));
   return parsed.data;
@@ -114,9 +119,12 @@ export function parseValue<S extends z.ZodType>(schema: S, raw: unknown): z.outp
 /** Maps what a handler threw to the response the caller gets. */
 export function responseForError(error: unknown, context: { method: string; path: string }): Response {
   if (error instanceof HttpResponseError) return error.response;
+  if (isBodyTooLarge(error)) return errorResponse(413, 'PAYLOAD_TOO_LARGE', `${error.message} Send fewer or smaller items.`);
   if (error instanceof DomainError) {
     const issues = error.field ? [{ path: error.field, message: error.message }] : undefined;
-    return errorResponse(domainStatus[error.code], error.code, error.message, issues, error.details);
+    const response = errorResponse(domainStatus[error.code], error.code, error.message, issues, error.details);
+    if (error.retryAfterSeconds !== undefined) response.headers.set('retry-after', String(error.retryAfterSeconds));
+    return response;
   }
   if (isEngineError(error)) {
     const issues = error.issues.length
@@ -126,7 +134,7 @@ export function responseForError(error: unknown, context: { method: string; path
   }
   if (isDatabaseUnavailable(error)) {
     console.error(`[http] ${context.method} ${context.path}: database unavailable: ${describeForLog(error)}`);
-    return errorResponse(503, 'SERVICE_UNAVAILABLE', 'The service is briefly unavailable; please try again in a minute.');
+    return outageJson();
   }
   console.error(`[http] ${context.method} ${context.path} failed: ${describeForLog(error)}`);
   return errorResponse(500, 'INTERNAL', 'Something went wrong on our side; nothing was changed. Please try again.');

@@ -11,6 +11,11 @@ export interface SignInLinkRequest {
   metadata?: Record<string, unknown>;
 }
 
+/** Metadata every link of ours carries: the id of the mail job, so a retried job mails once. */
+export interface LinkMailMetadata {
+  mailJobId: string;
+}
+
 /** The metadata a submission passes when it asks for the owner's first link. */
 export interface SubmissionLinkMetadata {
   purpose: 'submission-confirmation';
@@ -33,5 +38,6 @@ export function signInLinkEmail({ email, url, metadata }: SignInLinkRequest): Ou
 }
 
 export async function deliverSignInLink(request: SignInLinkRequest): Promise<void> {
-  await enqueue(jobNames.sendEmail, { email: signInLinkEmail(request) });
+  const mailJobId = typeof request.metadata?.mailJobId === 'string' ? request.metadata.mailJobId : undefined;
+  await enqueue(jobNames.sendEmail, { email: signInLinkEmail(request) }, { id: mailJobId });
 }

@@ -5,6 +5,7 @@
 import { z } from 'zod';
 import { plantInputSchema } from '../engine';
 import { countryCodes, isCountryCode, normalisePostalCode, postalFormats } from '../lib/routing/postal-code';
+import { textRule } from './text';
 
 export const plantTypes = [
   { id: 'creamery', name: 'Creamery or dairy' },
@@ -24,7 +25,7 @@ export const countryOptions = countryCodes.map((code) => ({ code, name: postalFo
 /** Where the plant is and what it makes: routing reads the country and postal code. */
 export const plantDetailsSchema = z
   .object({
-    plantName: z.string().trim().max(120, { error: 'Keep the plant name under 120 characters.' }).optional(),
+    plantName: z.string().trim().max(120, { error: 'Keep the plant name under 120 characters.' }).superRefine(textRule).optional(),
     plantType: z.enum(plantTypeIds, { error: 'Choose the kind of plant from the list.' }),
     countryCode: z
       .string({ error: 'Choose the country the plant is in.' })
@@ -56,12 +57,14 @@ export const contactSchema = z.object({
     .string({ error: 'Enter your name.' })
     .trim()
     .min(1, { error: 'Enter your name.' })
-    .max(120, { error: 'Keep your name under 120 characters.' }),
+    .max(120, { error: 'Keep your name under 120 characters.' })
+    .superRefine(textRule),
   company: z
     .string({ error: 'Enter the company or plant name.' })
     .trim()
     .min(1, { error: 'Enter the company or plant name.' })
-    .max(160, { error: 'Keep the company name under 160 characters.' }),
+    .max(160, { error: 'Keep the company name under 160 characters.' })
+    .superRefine(textRule),
   email: z
     .string({ error: 'Enter your e-mail address.' })
     .trim()
@@ -83,7 +86,7 @@ export const createAssessmentSchema = z.object({
   plant: plantDetailsSchema,
   estimate: plantInputSchema,
   /** A field people never see; bots fill it. Anything in it marks the submission as spam. */
-  website: z.string().max(500).optional(),
+  website: z.string().max(500).superRefine(textRule).optional(),
 });
 
 export type CreateAssessmentInput = z.input<typeof createAssessmentSchema>;

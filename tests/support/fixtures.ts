@@ -4,7 +4,7 @@
  */
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
-import { getDb } from '../../src/db/client';
+import { getDb, type Database } from '../../src/db/client';
 import { regionConsultants, regionPostalPrefixes, regions, user } from '../../src/db/schema';
 import type { CreateAssessmentInput } from '../../src/schemas/assessment';
 import { stack } from './stack';
@@ -18,8 +18,7 @@ export const testRegion = {
 };
 
 /** Makes the tests' region and its consultant once; safe to call from every test file. */
-export async function ensureTestRegion(): Promise<{ regionId: string; consultantId: string }> {
-  const db = getDb();
+export async function ensureTestRegion(db: Database = getDb()): Promise<{ regionId: string; consultantId: string }> {
   const [region] = await db
     .insert(regions)
     .values({ slug: testRegion.slug, name: testRegion.name, countryCode: testRegion.countryCode })

@@ -82,9 +82,18 @@ export interface AssessmentSummary {
   regionName: string | null;
 }
 
-export async function findAssessmentByIdempotencyKey(db: Executor, key: string): Promise<AssessmentSummary | null> {
+export async function findAssessmentByIdempotencyKey(
+  db: Executor,
+  key: string,
+): Promise<(AssessmentSummary & { fingerprint: string | null }) | null> {
   const [row] = await db
-    .select({ id: assessments.id, reference: assessments.reference, status: assessments.status, regionName: regions.name })
+    .select({
+      id: assessments.id,
+      reference: assessments.reference,
+      status: assessments.status,
+      regionName: regions.name,
+      fingerprint: assessments.idempotencyFingerprint,
+    })
     .from(assessments)
     .leftJoin(regions, eq(regions.id, assessments.regionId))
     .where(eq(assessments.idempotencyKey, key));

@@ -29,7 +29,7 @@ export function PhotoPicker({ runId, runTitle }: Props) {
       <p id={`${id}-hint`} className="field-hint">
         Photos are not kept if you reload the page; add them last. JPEG, PNG, WebP, HEIC or PDF, up to{' '}
         {Math.round(MAX_PHOTO_BYTES / (1024 * 1024))} MB each and {MAX_PHOTOS} in all. Photos lose their location data
-        when stored; a PDF is kept exactly as sent.
+        when stored; a PDF keeps its pages only (no scripts or attached files).
       </p>
       <input
         ref={input}

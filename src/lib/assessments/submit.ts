@@ -3,7 +3,7 @@
  * photos' records, the activity entry and the jobs that mail the owner and alert the
  * region's consultants — all of it or none of it.
  */
-import { randomUUID } from 'node:crypto';
+import { createHash, randomUUID } from 'node:crypto';
 import { findAssessmentByIdempotencyKey, insertAssessment, recordActivity, type AssessmentSummary } from '../../db/queries/assessments';
 import { hitRateLimit } from '../../db/queries/rate-limits';
 import { findRegionForPostalCode, lockRouting } from '../../db/queries/regions';
@@ -35,6 +35,8 @@ export interface SubmissionLimits {
 
 export interface SubmissionContext {
   idempotencyKey?: string;
+  /** SHA-256 of the request (see submissionFingerprint); a key reused with another body is refused. */
+  fingerprint?: string;
   /** The submitter's network address, for the per-address limit. */
   clientAddress: string;
   limits?: SubmissionLimits;
@@ -74,6 +76,26 @@ async function enforceRateLimits(contactEmail: string, clientAddress: string, li
   }
 }
 
+/** What identifies a submission's content: the parsed assessment and each photo's bytes. */
+export function submissionFingerprint(input: CreateAssessment, photos: SubmittedPhoto[]): string {
+  const hash = createHash('sha256').update(JSON.stringify(input));
+  for (const { runId, photo } of photos) hash.update(`\u0000${runId ?? ''}\u0000`).update(photo.bytes);
+  return hash.digest('hex');
+}
+
+/** The earlier answer for a reused key, unless the key now comes with something else. */
+function replayOf(earlier: AssessmentSummary & { fingerprint: string | null }, context: SubmissionContext): SubmissionOutcome {
+  const { fingerprint, ...assessment } = earlier;
+  if (fingerprint !== null && context.fingerprint !== undefined && fingerprint !== context.fingerprint) {
+    throw new DomainError(
+      'UNPROCESSABLE',
+      'This Idempotency-Key was already used for a different assessment. Send a new key with each new assessment; reuse a key only to resend the very same one.',
+      'Idempotency-Key',
+    );
+  }
+  return { assessment, replayed: true };
+}
+
 export async function submitAssessment(
   input: CreateAssessment,
   photos: SubmittedPhoto[],
@@ -82,7 +104,7 @@ export async function submitAssessment(
   const db = getDb();
   if (context.idempotencyKey) {
     const earlier = await findAssessmentByIdempotencyKey(db, context.idempotencyKey);
-    if (earlier) return { assessment: earlier, replayed: true };
+    if (earlier) return replayOf(earlier, context);
   }
   await enforceRateLimits(input.contact.email, context.clientAddress, context.limits ?? defaultSubmissionLimits());
 
@@ -138,6 +160,7 @@ export async function submitAssessment(
           engineVersion: ENGINE_VERSION,
           ...headlineColumnsOf(result, stored.filter(({ photo }) => isPhoto(photo.photo.contentType)).length),
           idempotencyKey: context.idempotencyKey ?? null,
+          idempotencyFingerprint: context.idempotencyKey ? (context.fingerprint ?? null) : null,
         },
         runs.map((run) => ({ label: run.label, service: run.service, lengthM: run.lengthM, spec: run })),
         stored.map(({ key, photo }) => ({
@@ -171,7 +194,7 @@ export async function submitAssessment(
     if (context.idempotencyKey && isUniqueViolation(error, 'idempotency_key')) {
       // A simultaneous request with the same key won the race; answer with what it stored.
       const earlier = await findAssessmentByIdempotencyKey(db, context.idempotencyKey);
-      if (earlier) return { assessment: earlier, replayed: true };
+      if (earlier) return replayOf(earlier, context);
     }
     throw error;
   }

@@ -3,13 +3,14 @@ import type PgBoss from 'pg-boss';
 import { getDb } from '../../db/client';
 import { getAssessmentForMail } from '../../db/queries/assessments';
 import { listRegionConsultants } from '../../db/queries/consultants';
+import { findSignInAccount, revokeSignInLinks } from '../../db/queries/sign-in-links';
 import { inTransaction } from '../../db/transaction';
 import { getAuth } from '../auth';
 import { sendEmail } from '../email/mailer';
 import { NothingToSend, renderEmail } from '../email/render';
-import type { SubmissionLinkMetadata } from '../sign-in-links';
+import type { LinkMailMetadata, SubmissionLinkMetadata } from '../sign-in-links';
 import { alertAdminsOfUnrouted, mailStaleDigest } from '../admin/oversight';
-import { enqueue, jobNames } from './queue';
+import { derivedJobId, enqueue, jobExists, jobNames } from './queue';
 import type { JobName, JobPayloads } from './names';
 
 type Handler<N extends JobName> = (job: PgBoss.Job<JobPayloads[N]>) => Promise<void>;
@@ -39,8 +40,12 @@ export const jobHandlers: { [N in JobName]: Handler<N> } = {
     unlessGone(async () => {
       const assessment = await getAssessmentForMail(getDb(), job.data.assessmentId);
       if (!assessment) throw new NothingToSend(`assessment ${job.data.assessmentId} no longer exists`);
-      const metadata: SubmissionLinkMetadata = { purpose: 'submission-confirmation', assessmentId: assessment.id };
-      // better-auth mints the sign-in link and hands it to deliverSignInLink, which queues the mail.
+      // Run twice (its worker killed after queuing the mail), the job finds the mail already queued.
+      const mailJobId = derivedJobId('submission-confirmation', assessment.id);
+      if (await jobExists(jobNames.sendEmail, mailJobId)) return;
+      const metadata: SubmissionLinkMetadata & LinkMailMetadata = { purpose: 'submission-confirmation', assessmentId: assessment.id, mailJobId };
+      // A new link revokes the older ones; better-auth mints it and hands it to deliverSignInLink, which queues the mail.
+      await revokeSignInLinks(getDb(), assessment.contactEmail);
       await getAuth().api.signInMagicLink({
         body: { email: assessment.contactEmail, callbackURL: `/my/assessments/${assessment.id}`, metadata: { ...metadata } },
         headers: new Headers(),
@@ -68,7 +73,7 @@ export const jobHandlers: { [N in JobName]: Handler<N> } = {
                 props: { assessmentId: assessment.id, consultantName: consultant.name, ...(job.data.reopened ? { reopened: true } : {}) },
               },
             },
-            { sqlRunner },
+            { sqlRunner, id: derivedJobId('consultant-alert', job.id, consultant.email) },
           );
         }
       });
@@ -85,5 +90,20 @@ export const jobHandlers: { [N in JobName]: Handler<N> } = {
 
   'stale-leads-check': async () => {
     await mailStaleDigest();
+  },
+
+  'sign-in-link-request': async (job) => {
+    // Only here, off the request, do we look the address up: the form answers the same, in the
+    // same time, for an address with an account and one without.
+    const account = await findSignInAccount(getDb(), job.data.email);
+    if (!account) return;
+    const mailJobId = derivedJobId('sign-in-link', job.id);
+    if (await jobExists(jobNames.sendEmail, mailJobId)) return;
+    const metadata: LinkMailMetadata = { mailJobId };
+    await revokeSignInLinks(getDb(), job.data.email);
+    await getAuth().api.signInMagicLink({
+      body: { email: job.data.email, callbackURL: job.data.next, metadata: { ...metadata } },
+      headers: new Headers(),
+    });
   },
 };

@@ -12,6 +12,8 @@ export const jobNames = {
   alertAdminsUnrouted: 'admins-unrouted-alert',
   /** Hourly (pg-boss schedule): mail the admins about stale open leads, at most once a day. */
   checkStaleLeads: 'stale-leads-check',
+  /** Someone asked for a sign-in link: mail one if the address has an account, else nothing. */
+  requestSignInLink: 'sign-in-link-request',
 } as const;
 
 export type JobName = (typeof jobNames)[keyof typeof jobNames];
@@ -26,14 +28,19 @@ export interface JobPayloads {
   'consultants-alert': { assessmentId: string; reopened?: boolean; excludeUserIds?: string[] };
   'admins-unrouted-alert': { assessmentId: string };
   'stale-leads-check': Record<string, never>;
+  'sign-in-link-request': { email: string; next: string };
 }
 
 /** When the stale-lead check runs (cron, UTC): hourly, so a digest goes out soon after leads go stale. */
 export const STALE_CHECK_CRON = '17 * * * *';
 
-/** Retry policy per queue: mail keeps trying for hours so an outage delays and loses nothing. */
-export function queuePolicies(retryDelaySeconds: number) {
-  const patient = { retryLimit: 14, retryDelay: retryDelaySeconds, retryBackoff: true, retentionDays: 14 };
+/**
+ * Retry policy per queue: mail keeps trying for hours so an outage delays and loses nothing.
+ * A job whose worker died is handed out again after `expireInSeconds` (every mail call has a
+ * timeout well under it, src/lib/email/mailer.ts).
+ */
+export function queuePolicies(retryDelaySeconds: number, expireInSeconds = 300) {
+  const patient = { retryLimit: 14, retryDelay: retryDelaySeconds, retryBackoff: true, retentionDays: 14, expireInSeconds };
   return {
     'email-send': patient,
     'submission-confirm': patient,
@@ -41,5 +48,6 @@ export function queuePolicies(retryDelaySeconds: number) {
     'admins-unrouted-alert': patient,
     // The next hour's run does the same work; no need to retry for long.
     'stale-leads-check': { retryLimit: 2, retryDelay: retryDelaySeconds, retryBackoff: true, retentionDays: 2 },
+    'sign-in-link-request': { ...patient, retryLimit: 5 },
   } satisfies Record<JobName, object>;
 }

@@ -9,6 +9,7 @@ import { fileTypeFromBuffer } from 'file-type';
 import sharp from 'sharp';
 import { MAX_PHOTOS, MAX_PHOTO_BYTES } from '../../schemas/assessment';
 import { DomainError } from '../errors';
+import { cleanPdf } from './pdf-clean';
 
 /** Longest side of a stored image: plenty for a consultant to read a pipe label or a gauge. */
 export const MAX_PHOTO_SIDE_PX = 3200;
@@ -26,7 +27,7 @@ const MIB = 1024 * 1024;
 export type PhotoRefusalCode = 'EMPTY' | 'TOO_LARGE' | 'UNSUPPORTED_TYPE' | 'UNREADABLE' | 'TOO_MANY_PIXELS';
 
 export interface CleanPhoto {
-  /** Freshly encoded image without any metadata, or the PDF as it came. */
+  /** Freshly encoded image without any metadata, or the PDF's pages rewritten without active content. */
   bytes: Buffer;
   contentType: 'image/jpeg' | 'image/png' | 'image/webp' | 'application/pdf';
   /** For our storage key: `jpg`, `png`, `webp` or `pdf`. */
@@ -148,7 +149,7 @@ function megapixels(pixels: number): string {
 
 /**
  * Checks one uploaded file and returns what may be stored: JPEG, PNG and WebP re-encoded in
- * their own format, HEIC/HEIF re-encoded as JPEG, PDF kept as is. Images are turned upright
+ * their own format, HEIC/HEIF re-encoded as JPEG, a PDF rewritten with its pages only (no scripts or attachments). Images are turned upright
  * from their EXIF orientation, shrunk to at most {@link MAX_PHOTO_SIDE_PX} on the long side and
  * written without any metadata (EXIF with GPS, XMP, IPTC, ICC; colours converted to sRGB).
  * Never throws for anything in the file; a refusal carries a sentence naming the file.
@@ -202,7 +203,18 @@ export async function cleanPhoto(bytes: Uint8Array, originalName?: string): Prom
         `${theFile} does not look like a complete PDF; it may be damaged or cut off — save it again and send the new copy.`,
       );
     }
-    return withName({ contentType: 'application/pdf', extension: 'pdf', bytes: Buffer.from(bytes) });
+    const cleaned = await cleanPdf(bytes);
+    if (!cleaned.ok) {
+      return refuse(
+        'UNREADABLE',
+        cleaned.reason === 'encrypted'
+          ? `${theFile} is password-protected; save a copy without the password and send that.`
+          : cleaned.reason === 'empty'
+            ? `${theFile} has no pages; send the PDF that shows the plant.`
+            : `${theFile} could not be read as a PDF; save it again (for example with "Print to PDF") and send the new copy.`,
+      );
+    }
+    return withName({ contentType: 'application/pdf', extension: 'pdf', bytes: Buffer.from(cleaned.bytes) });
   }
 
   if (kind === 'heif') {

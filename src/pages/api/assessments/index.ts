@@ -1,6 +1,6 @@
 import { createAssessmentSchema, MAX_PHOTO_BYTES, MAX_PHOTOS, PHOTO_FIELD } from '../../../schemas/assessment';
 import { submitAssessmentAnswerSchema } from '../../../schemas/assessment-answer';
-import { submitAssessment, type SubmittedPhoto } from '../../../lib/assessments/submit';
+import { submissionFingerprint, submitAssessment, type SubmittedPhoto } from '../../../lib/assessments/submit';
 import { answer, endpoint, HttpResponseError, parseJsonBody, parseValue, validationFailed } from '../../../lib/http';
 import { readMultipart } from '../../../lib/multipart';
 import { checkPhotoCount, cleanPhoto, photoRefusalError } from '../../../lib/uploads/photos';
@@ -62,6 +62,7 @@ export const POST = endpoint(async ({ request, clientAddress }) => {
   } else {
     input = await parseJsonBody(request, createAssessmentSchema);
   }
-  const outcome = await submitAssessment(input, photos, { idempotencyKey, clientAddress });
+  const fingerprint = submissionFingerprint(input, photos);
+  const outcome = await submitAssessment(input, photos, { idempotencyKey, fingerprint, clientAddress });
   return answer(submitAssessmentAnswerSchema, { assessment: outcome.assessment }, outcome.replayed ? 200 : 201);
 });
