@@ -37,13 +37,27 @@ function pathnameOf(req: IncomingMessage): string {
   }
 }
 
-function refuseTooLarge(res: ServerResponse, maxBytes: number): void {
+/**
+ * 413 before a byte of the body is read. With the client still sending, closing at once would
+ * reset the connection and the client could lose the answer; so the connection stays open a
+ * moment while Node discards what arrives (nothing is kept), then it is cut. A client waiting on
+ * `Expect: 100-continue` has sent nothing, so its connection closes at once.
+ */
+function refuseTooLarge(res: ServerResponse, maxBytes: number, { bodyOnTheWay }: { bodyOnTheWay: boolean }): void {
   const body = JSON.stringify({
     error: { code: 'PAYLOAD_TOO_LARGE', message: `The request body is over ${describeBytes(maxBytes)}; send less.` },
   });
-  // The body is left unread; closing the connection is the only way to be rid of it.
-  res.writeHead(413, { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store', connection: 'close' });
+  res.writeHead(413, {
+    'content-type': 'application/json; charset=utf-8',
+    'cache-control': 'no-store',
+    ...(bodyOnTheWay ? {} : { connection: 'close' }),
+  });
   res.end(body);
+  if (bodyOnTheWay) {
+    const socket = res.socket;
+    const cut = setTimeout(() => socket?.destroy(), 2_000);
+    socket?.once('close', () => clearTimeout(cut));
+  }
 }
 
 function declaredLength(req: IncomingMessage): number | undefined {
@@ -78,7 +92,7 @@ function handle(req: IncomingMessage, res: ServerResponse): void {
   }
   const maxBytes = maxBodyBytesFor(pathnameOf(req));
   const declared = declaredLength(req);
-  if (declared !== undefined && declared > maxBytes) return refuseTooLarge(res, maxBytes);
+  if (declared !== undefined && declared > maxBytes) return refuseTooLarge(res, maxBytes, { bodyOnTheWay: true });
   if (req.method !== 'GET' && req.method !== 'HEAD') {
     Object.defineProperty(req, 'body', { value: cappedBody(req, maxBytes), configurable: true });
   }
@@ -98,7 +112,7 @@ server.on('checkContinue', (req: IncomingMessage, res: ServerResponse) => {
       res.end(JSON.stringify({ error: { code: 'LENGTH_REQUIRED', message: 'Send Content-Length with Expect: 100-continue.' } }));
       return;
     }
-    refuseTooLarge(res, maxBytes);
+    refuseTooLarge(res, maxBytes, { bodyOnTheWay: false });
     return;
   }
   res.writeContinue();
