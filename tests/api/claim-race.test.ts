@@ -55,7 +55,8 @@ function claim(base: string, cookie: string, leadId: string): Promise<Answer> {
   return new Promise((resolve, reject) => {
     const req = request(
       `${base}/api/leads/${leadId}/claim`,
-      { method: 'POST', agent: false, headers: { cookie, origin: base, 'content-type': 'application/json', 'content-length': '2' } },
+      // Both servers answer for one public address (as behind a load balancer): a browser's Origin is that address.
+      { method: 'POST', agent: false, headers: { cookie, origin: stack.appUrl, 'content-type': 'application/json', 'content-length': '2' } },
       (res) => {
         const chunks: Buffer[] = [];
         res.on('data', (c: Buffer) => chunks.push(c));
