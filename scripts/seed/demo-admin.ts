@@ -9,6 +9,7 @@ import { eq, sql } from 'drizzle-orm';
 import { getDb } from '../../src/db/client';
 import { assessments, user } from '../../src/db/schema';
 import { submitAssessment } from '../../src/lib/assessments/submit';
+import { seedSubmissionContext } from './demo-assessments.ts';
 import { claimLead } from '../../src/lib/leads/claim';
 import { createAssessmentSchema, type CreateAssessmentInput, type PlantTypeId } from '../../src/schemas/assessment';
 
@@ -81,7 +82,7 @@ export const adminDemoSubmissions = [unrouted, stale, ...atCap];
 export const adminDemoClaims = atCap.length;
 
 async function submit(entry: { key: string; input: CreateAssessmentInput }) {
-  return submitAssessment(createAssessmentSchema.parse(entry.input), [], { idempotencyKey: entry.key, clientAddress: 'demo-seed' });
+  return submitAssessment(createAssessmentSchema.parse(entry.input), [], { ...seedSubmissionContext, idempotencyKey: entry.key });
 }
 
 /** Stores the admin's demo cases; answers how many assessments were new. */

@@ -8,6 +8,7 @@ import { and, eq, like } from 'drizzle-orm';
 import { getDb } from '../../src/db/client';
 import { activityLog, assessments, user } from '../../src/db/schema';
 import { submitAssessment } from '../../src/lib/assessments/submit';
+import { seedSubmissionContext } from './demo-assessments.ts';
 import { claimLead } from '../../src/lib/leads/claim';
 import type { CloseReason, ReleaseReason } from '../../src/lib/leads/pipeline';
 import { addLeadNote, moveLead, releaseLead } from '../../src/lib/leads/work';
@@ -363,7 +364,7 @@ export async function seedDeskDemo(): Promise<{ submitted: number; histories: nu
   let submitted = 0;
   let histories = 0;
   for (const { key, input } of deskDemoLeads) {
-    const outcome = await submitAssessment(createAssessmentSchema.parse(input), [], { idempotencyKey: key, clientAddress: 'demo-seed' });
+    const outcome = await submitAssessment(createAssessmentSchema.parse(input), [], { ...seedSubmissionContext, idempotencyKey: key });
     if (!outcome.replayed) submitted += 1;
   }
   for (const { key, steps } of [...deskDemoLeads, ...deskDemoHistories]) {

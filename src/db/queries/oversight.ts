@@ -249,3 +249,11 @@ export async function recentRegionLeads(db: Executor, perRegion: number) {
     ) ranked where n <= ${perRegion}`);
   return result.rows;
 }
+
+/** Unrouted United States assessments by the first three digits of their ZIP code. */
+export async function unroutedUsZip3(db: Executor): Promise<Map<string, number>> {
+  const result = await db.execute<{ zip3: string; n: string }>(sql`
+    select left(postal_code_normalised, 3) as zip3, count(*) as n
+    from ${assessments} where status = 'unrouted' and country_code = 'US' group by 1`);
+  return new Map(result.rows.map((r) => [r.zip3, Number(r.n)]));
+}

@@ -16,6 +16,7 @@ import {
   listStaleLeads,
   recentRegionLeads,
   unroutedByStart,
+  unroutedUsZip3,
 } from '../../db/queries/oversight';
 import { listPrefixRows } from '../../db/queries/region-admin';
 import type { AssessmentStatus } from '../../db/statuses';
@@ -27,6 +28,7 @@ import { plantTypeName } from '../leads/read';
 import { activityLine } from './activity-words';
 import { listRegions } from './regions';
 import { readSettings } from './settings';
+import { stateCoverage, stateShapes, type StateCoverage, type StateShape } from './us-map';
 
 /** The attention list: leads that need a person, and consultants over their cap. */
 export async function getAttention(db: Executor = getDb()): Promise<AttentionResponse> {
@@ -145,6 +147,8 @@ export interface Coverage {
   })[];
   countries: CoverageCountry[];
   staleAfterHours: number;
+  /** The United States map's shapes and per-state coverage, when any US region or unrouted US assessment exists. */
+  usMap: { shapes: StateShape[]; states: Map<string, StateCoverage> } | null;
 }
 
 const DIGITS = '0123456789'.split('');
@@ -156,7 +160,7 @@ const DIGITS = '0123456789'.split('');
  * covers, and where unrouted assessments sit.
  */
 export async function getCoverage(db: Executor = getDb()): Promise<Coverage> {
-  const [{ staleAfterHours }, regions, prefixes, loads, claims, unrouted, recent] = await Promise.all([
+  const [{ staleAfterHours }, regions, prefixes, loads, claims, unrouted, recent, unroutedZip3] = await Promise.all([
     readSettings(db),
     listRegions(db),
     listPrefixRows(db),
@@ -164,12 +168,15 @@ export async function getCoverage(db: Executor = getDb()): Promise<Coverage> {
     claimsPerConsultant(db, 30),
     unroutedByStart(db),
     recentRegionLeads(db, 6),
+    unroutedUsZip3(db),
   ]);
+  const usPrefixes = prefixes.filter((p) => p.countryCode === 'US');
   const live = regions.filter((r) => !r.retiredAt);
   const loadById = new Map(loads.map((l) => [l.id, l]));
   const countries = [...new Set([...live.map((r) => r.countryCode), ...unrouted.map((u) => u.countryCode)])].sort();
   return {
     staleAfterHours,
+    usMap: usPrefixes.length || unroutedZip3.size ? { shapes: stateShapes(), states: stateCoverage(usPrefixes, unroutedZip3) } : null,
     regions: live.map((region) => ({
       ...region,
       consultantLoads: region.consultants.map((c) => {
