@@ -7,6 +7,7 @@ import { INSULATION_MATERIAL_IDS } from './data/insulation-materials';
 import { AREA_PRESET_IDS } from './data/areas';
 import { FITTING_TYPE_IDS } from './data/fittings';
 import { MARKET_IDS } from './data/markets';
+import { LAGGING_CONDITION_IDS } from './data/lagging-condition';
 import { BARE_FINISH_IDS, JACKET_IDS } from './data/surfaces';
 import { HOURS_PER_YEAR } from './physical-constants';
 import { cataloguePipeSchema, explicitPipeSchema, fluidTemperatureSchema, MAX_INSULATION_THICKNESS_M } from './run-input';
@@ -50,6 +51,9 @@ export const ambientSchema = z.discriminatedUnion(
   { error: 'Ambient must be one of indoor-still, indoor-draughty or outdoor.' },
 );
 
+/** How the lagging in place looks (see data/lagging-condition): sound, wet through or crushed. */
+const laggingCondition = oneOf('Condition of the existing insulation', LAGGING_CONDITION_IDS).default('sound');
+
 /** The run's insulation today. */
 export const currentStateSchema = z.discriminatedUnion(
   'state',
@@ -62,12 +66,14 @@ export const currentStateSchema = z.discriminatedUnion(
       material: oneOf('Existing insulation material', INSULATION_MATERIAL_IDS).default('mineral-wool'),
       thicknessM: thickness('Existing insulation thickness').default(0.025),
       jacket: oneOf('Existing jacket', JACKET_IDS).default('all-service-jacket'),
+      condition: laggingCondition,
     }),
     z.object({
       state: z.literal('insulated'),
       material: oneOf('Existing insulation material', INSULATION_MATERIAL_IDS),
       thicknessM: thickness('Existing insulation thickness'),
       jacket: oneOf('Existing jacket', JACKET_IDS).default('all-service-jacket'),
+      condition: laggingCondition,
     }),
   ],
   { error: 'Current state must be one of bare, damaged or insulated.' },

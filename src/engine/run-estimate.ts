@@ -9,6 +9,7 @@ import type { InsulationMaterial } from './data/insulation-materials';
 import { fittingCoverCost, installedCostPerMetre, simplePaybackYears } from './economics';
 import { EngineError } from './errors';
 import { walkStockSeries, type SeriesPoint } from './least-thickness';
+import { LAGGING_CONDITIONS, type LaggingConditionId } from './data/lagging-condition';
 import { interpretMeasurements, type MeasurementReading } from './measurements';
 import type { OptionKind, ParsedPlantInput, ParsedPlantRun } from './plant-input';
 import type {
@@ -270,7 +271,7 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   const conditionFactor = reading?.conditionFactor ?? 1;
   if (run.current.state !== 'bare') {
     const material = materialOrFail(run.current.material);
-    const layers = [{ thicknessM: run.current.thicknessM, curve: material.conductivity }];
+    const layers = [laggingInPlace(material, run.current.thicknessM, run.current.condition)];
     const emittance = emittanceOf(run.current.jacket);
     existing = { material, thicknessM: run.current.thicknessM, jacket: run.current.jacket, emittance, layers };
     currentInsRun = { ...base, layers, surfaceEmittance: emittance };
@@ -761,7 +762,15 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
 function currentLayers(run: ParsedPlantRun): ResolvedLayer[] | null {
   if (run.current.state === 'bare') return null;
   const material = findInsulationMaterial(run.current.material);
-  return material ? [{ thicknessM: run.current.thicknessM, curve: material.conductivity }] : null;
+  return material ? [laggingInPlace(material, run.current.thicknessM, run.current.condition)] : null;
+}
+
+/** The layer of lagging on the pipe today, as its condition leaves it (data/lagging-condition). */
+function laggingInPlace(material: InsulationMaterial, thicknessM: number, condition: LaggingConditionId): ResolvedLayer {
+  const found = LAGGING_CONDITIONS.find((c) => c.id === condition) ?? LAGGING_CONDITIONS[0];
+  const { a, b, c } = material.conductivity;
+  const k = found.conductivityFactor;
+  return { thicknessM: thicknessM * found.thicknessFactor, curve: k === 1 ? material.conductivity : { a: a * k, b: b * k, c: c * k } };
 }
 
 /** The name of an option in our words. */
