@@ -106,7 +106,7 @@ export const assessments = pgTable(
     postalCodeNormalised: text('postal_code_normalised').notNull(),
     /** Plant-level and energy answers (SI), without the runs, which have their own rows. */
     questionnaire: jsonb('questionnaire').notNull(),
-    /** The engine's PlantResult at submission (or at the last recompute). */
+    /** The engine's PlantResult at submission: the owner's original, never changed (site walks add revisions). */
     resultSnapshot: jsonb('result_snapshot').notNull(),
     engineVersion: text('engine_version').notNull(),
     /** The submitter's key, so a double click stores one assessment. */
@@ -114,7 +114,8 @@ export const assessments = pgTable(
     /*
      * Headline figures copied out of the result snapshot (see src/lib/assessments/headline.ts)
      * so the desk's lists sort and filter on plain columns instead of unpacking every snapshot.
-     * Written with the snapshot: on submission and on every recompute.
+     * Written with the snapshot on submission, then by every site-walk revision, so they follow
+     * the latest figures while the owner's snapshot stays as it was.
      */
     /** The plant's currency (ISO 4217) all the money columns are in. */
     currency: char('currency', { length: 3 }).notNull(),
@@ -133,6 +134,12 @@ export const assessments = pgTable(
     services: text('services').array().notNull(),
     /** SHA-256 of what was submitted under the key: the same key with another body is refused. */
     idempotencyFingerprint: text('idempotency_fingerprint'),
+    /**
+     * Number of the latest site-walk revision; 0 while the owner's answers stand. A revision is
+     * saved by a conditional UPDATE on this column, so two saves made from the same base cannot
+     * both land.
+     */
+    revisionNumber: integer('revision_number').notNull().default(0),
     ...timestamps,
   },
   (t) => [
@@ -206,6 +213,43 @@ export const pipeRuns = pgTable(
   (t) => [
     uniqueIndex('pipe_runs_assessment_position_key').on(t.assessmentId, t.position),
     check('pipe_runs_length_positive', sql`${t.lengthM} > 0`),
+  ],
+);
+
+/**
+ * A site-walk revision of a lead: the whole plant as the engine takes it after the consultant's
+ * corrections (runs, and the rooms they sit in), the engine's result for it, and who saved it,
+ * when and why. Numbered 1, 2, … per lead; each is made from the one before (the owner's
+ * original is number 0 and lives on the assessment). Never changed once stored.
+ */
+export const leadRevisions = pgTable(
+  'lead_revisions',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    assessmentId: uuid('assessment_id')
+      .notNull()
+      .references(() => assessments.id, { onDelete: 'cascade' }),
+    number: integer('number').notNull(),
+    /** The revision this one was made from (0: the owner's original). */
+    baseNumber: integer('base_number').notNull(),
+    /** The PlantInput after parsing (defaults filled in), so a recompute needs nothing else. */
+    plantInput: jsonb('plant_input').notNull(),
+    /** The engine's PlantResult for it. */
+    resultSnapshot: jsonb('result_snapshot').notNull(),
+    engineVersion: text('engine_version').notNull(),
+    authorUserId: uuid('author_user_id').references(() => user.id, { onDelete: 'set null' }),
+    reason: text('reason').notNull(),
+    /**
+     * The key the author's device gave this save, so a save sent again after a dropped
+     * connection returns the revision it already made instead of a second one.
+     */
+    clientKey: text('client_key'),
+    createdAt: timestamps.createdAt,
+  },
+  (t) => [
+    uniqueIndex('lead_revisions_assessment_number_key').on(t.assessmentId, t.number),
+    uniqueIndex('lead_revisions_assessment_client_key').on(t.assessmentId, t.clientKey),
+    check('lead_revisions_number_follows_base', sql`${t.number} = ${t.baseNumber} + 1 and ${t.baseNumber} >= 0`),
   ],
 );
 
@@ -336,6 +380,11 @@ export const assessmentsRelations = relations(assessments, ({ one, many }) => ({
   pipeRuns: many(pipeRuns),
   attachments: many(attachments),
   activity: many(activityLog),
+  revisions: many(leadRevisions),
+}));
+
+export const leadRevisionsRelations = relations(leadRevisions, ({ one }) => ({
+  assessment: one(assessments, { fields: [leadRevisions.assessmentId], references: [assessments.id] }),
 }));
 
 export const pipeRunsRelations = relations(pipeRuns, ({ one }) => ({
@@ -358,3 +407,4 @@ export type Attachment = typeof attachments.$inferSelect;
 export type ActivityEntry = typeof activityLog.$inferSelect;
 export type ConsultantProfile = typeof consultantProfiles.$inferSelect;
 export type ConsultantInvitation = typeof consultantInvitations.$inferSelect;
+export type LeadRevision = typeof leadRevisions.$inferSelect;

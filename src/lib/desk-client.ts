@@ -1,7 +1,8 @@
 /**
- * The desk's part of the typed client (./api-client): lead lists, claims and pipeline moves.
- * Answers are checked against the same zod schemas the server answers with
- * (src/schemas/leads.ts). Apart from ./api-client so the estimate page does not load them.
+ * The desk's part of the typed client (./api-client): lead lists, claims, pipeline moves and
+ * site-walk revisions. Answers are checked against the same zod schemas the server answers with
+ * (src/schemas/leads.ts, src/schemas/revisions.ts). Apart from ./api-client so the estimate page
+ * does not load them.
  */
 import type { z } from 'zod';
 import {
@@ -15,6 +16,13 @@ import {
   type noteRequestSchema,
   type releaseRequestSchema,
 } from '../schemas/leads';
+import {
+  revisionListResponseSchema,
+  revisionSavedResponseSchema,
+  type RevisionListResponse,
+  type RevisionRequestInput,
+  type RevisionSavedResponse,
+} from '../schemas/revisions';
 import { send, type ApiResult } from './api-client';
 
 function jsonPost(body: unknown): RequestInit {
@@ -40,4 +48,22 @@ export function releaseLead(leadId: string, release: z.input<typeof releaseReque
 
 export function addLeadNote(leadId: string, note: z.input<typeof noteRequestSchema>): Promise<ApiResult<z.infer<typeof noteResponseSchema>>> {
   return send(`/api/leads/${encodeURIComponent(leadId)}/notes`, jsonPost(note), noteResponseSchema);
+}
+
+/** A lead's original, its site-walk revisions and what changed. */
+export function fetchRevisions(leadId: string, signal?: AbortSignal): Promise<ApiResult<RevisionListResponse>> {
+  return send(
+    `/api/leads/${encodeURIComponent(leadId)}/revisions`,
+    { headers: { accept: 'application/json' }, ...(signal ? { signal } : {}) },
+    parsesWith<RevisionListResponse>(revisionListResponseSchema),
+  );
+}
+
+/** Saves a site-walk revision; a 409 CONFLICT means someone saved a newer one first. */
+export function saveRevision(leadId: string, revision: RevisionRequestInput, signal?: AbortSignal): Promise<ApiResult<RevisionSavedResponse>> {
+  return send(
+    `/api/leads/${encodeURIComponent(leadId)}/revisions`,
+    { ...jsonPost(revision), ...(signal ? { signal } : {}) },
+    parsesWith<RevisionSavedResponse>(revisionSavedResponseSchema),
+  );
 }

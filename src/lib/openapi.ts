@@ -12,6 +12,7 @@ import { healthAnswerSchema } from '../schemas/health';
 import { ENGINE_VERSION, plantInputSchema } from '../engine';
 import { adminPaths, adminSchemas } from './openapi-admin';
 import { leadPaths, leadSchemas } from './openapi-leads';
+import { revisionPaths, revisionSchemas } from './openapi-revisions';
 import { APP_VERSION } from './site';
 
 const inputSchema = (schema: z.ZodType) => z.toJSONSchema(schema, { io: 'input', unrepresentable: 'any', target: 'draft-2020-12' });
@@ -126,6 +127,7 @@ export function openApiDocument() {
       },
       ...leadPaths(),
       ...adminPaths(),
+      ...revisionPaths(),
     },
     components: {
       schemas: {
@@ -134,6 +136,7 @@ export function openApiDocument() {
         ...adminSchemas(),
         ...answerSchemas(),
         ...leadSchemas(),
+        ...revisionSchemas(),
       },
     },
   };

@@ -10,7 +10,7 @@ import { and, eq, inArray, ne, notInArray, or, sql, type SQL } from 'drizzle-orm
 import { assessments, regionConsultants, type AssessmentStatus } from '../../db/schema';
 import { can } from '../guards';
 import type { SessionUser } from '../session';
-import { isHeldStage, pipeline, type MoveTarget } from './pipeline';
+import { isHeldStage, isRevisableStage, pipeline, type MoveTarget } from './pipeline';
 
 export interface LeadViewer {
   userId: string;
@@ -49,6 +49,8 @@ export interface LeadParts {
   moves: MoveTarget[];
   release: boolean;
   note: boolean;
+  /** May save a site-walk revision of the inventory. */
+  revise: boolean;
 }
 
 /** What `viewer` sees of and may do with a lead they reach. */
@@ -64,6 +66,7 @@ export function leadPartsFor(viewer: LeadViewer, lead: { status: AssessmentStatu
     moves: inCharge && isHeldStage(lead.status) ? [...pipeline[lead.status].moves] : [],
     release: inCharge && isHeldStage(lead.status) && pipeline[lead.status].release,
     note: inCharge,
+    revise: inCharge && isRevisableStage(lead.status),
   };
 }
 

@@ -15,6 +15,16 @@ export type HeldStage = (typeof heldStages)[number];
 /** Stages that count against a consultant's cap of open claims: work they still owe the owner. */
 export const openClaimStages = ['claimed', 'in_touch', 'site_walk_booked'] as const satisfies readonly HeldStage[];
 
+/**
+ * Stages at which the holder may revise the inventory after a site walk: until the work is
+ * agreed or the lead closed. A revision after the report is out feeds a corrected report.
+ */
+export const revisableStages = ['claimed', 'in_touch', 'site_walk_booked', 'report_sent'] as const satisfies readonly HeldStage[];
+
+export function isRevisableStage(status: AssessmentStatus): boolean {
+  return (revisableStages as readonly string[]).includes(status);
+}
+
 /** Stages a consultant may choose in a move (`report_sent` comes from sending a report). */
 export const movableStages = ['in_touch', 'site_walk_booked', 'signed', 'closed'] as const satisfies readonly HeldStage[];
 export type MoveTarget = (typeof movableStages)[number];

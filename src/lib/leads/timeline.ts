@@ -41,6 +41,17 @@ export function timelineLine(entry: ActivityEntryView): TimelineLine {
       const reason = labelOf(releaseReasons, d.reason);
       return { what: `${who(entry)} handed it back to the region${reason ? `: ${reason.toLowerCase()}` : ''}`, note: text(d.note) };
     }
+    case 'lead.revised': {
+      const parts = [
+        typeof d.changed === 'number' && d.changed > 0 ? `${d.changed} run${d.changed === 1 ? '' : 's'} corrected` : null,
+        typeof d.added === 'number' && d.added > 0 ? `${d.added} added` : null,
+        typeof d.removed === 'number' && d.removed > 0 ? `${d.removed} removed` : null,
+      ].filter(Boolean);
+      return {
+        what: `${who(entry)} saved site-walk revision ${typeof d.number === 'number' ? d.number : ''}${parts.length ? `: ${parts.join(', ')}` : ': figures worked out again'}`,
+        note: text(d.reason),
+      };
+    }
     case 'lead.noted':
       return { what: `${who(entry)} wrote a note`, note: text(d.text) };
     default:

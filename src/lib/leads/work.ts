@@ -26,7 +26,8 @@ export async function reachableLead(user: SessionUser, leadId: string | undefine
   return { viewer, found, leadId };
 }
 
-function notYours(found: LeadRecord): DomainError {
+/** The refusal for someone who reaches a lead but does not hold it. */
+export function notYours(found: LeadRecord): DomainError {
   const holder = found.holderFirm ?? found.holderName;
   return new DomainError(
     'FORBIDDEN',
@@ -35,11 +36,11 @@ function notYours(found: LeadRecord): DomainError {
 }
 
 /** Whose lead it must still be when the change lands: the viewer's, unless they reach every lead. */
-function holderCondition(viewer: LeadViewer): string | null {
+export function holderCondition(viewer: LeadViewer): string | null {
   return viewer.reach === 'all' ? null : viewer.userId;
 }
 
-function changedMeanwhile(): DomainError {
+export function changedMeanwhile(): DomainError {
   return new DomainError('CONFLICT', 'The lead changed while you were working on it; reload the page to see where it stands.');
 }
 
