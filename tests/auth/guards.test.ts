@@ -6,7 +6,7 @@ import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '../../src/db/client';
-import { session, user } from '../../src/db/schema';
+import { leadRevisions, session, user } from '../../src/db/schema';
 import { stopSender } from '../../src/lib/jobs/queue';
 import { DEMO_PASSWORD } from '../../scripts/seed/demo-people';
 import { asPerson, ensureConsultant, ensureDeskRegion, ownerCookie, passwordCookie, submitLead, type SubmittedLead } from '../support/desk';
@@ -147,6 +147,71 @@ describe('guards', () => {
     const api = await appFetch('/api/leads');
     expect(api.status).toBe(401);
     expect(await api.json()).toMatchObject({ error: { code: 'UNAUTHENTICATED' } });
+  });
+
+  describe('site-walk revisions', () => {
+    const revision = async (lead: SubmittedLead, base = 0) => {
+      const { original } = (await (await asPerson(admin, `/api/leads/${lead.id}/revisions`)).json()) as { original: { plant: { runs: { id: string; lengthM: number }[] } } };
+      return { baseNumber: base, reason: `Measured on site ${randomUUID().slice(0, 6)}`, runs: original.plant.runs.map((run) => ({ ...run, lengthM: run.lengthM + 1 })) };
+    };
+    const stored = async (lead: SubmittedLead) => (await getDb().select({ n: leadRevisions.number }).from(leadRevisions).where(eq(leadRevisions.assessmentId, lead.id))).length;
+
+    it('a consultant of another region cannot post a revision: the lead answers exactly as one that does not exist', async () => {
+      const body = await revision(held);
+      const before = await stored(held);
+      const outOfRegion = await asPerson(outsider, `/api/leads/${held.id}/revisions`, { method: 'POST', body });
+      const missing = await asPerson(outsider, `/api/leads/${randomUUID()}/revisions`, { method: 'POST', body });
+      expect(outOfRegion.status).toBe(404);
+      expect(await outOfRegion.text()).toBe(await missing.text());
+      expect((await asPerson(outsider, `/api/leads/${held.id}/revisions`)).status).toBe(404);
+      expect((await asPerson(outsider, `/desk/leads/${held.id}/site-walk`)).status).toBe(404);
+      expect(await stored(held)).toBe(before);
+    });
+
+    it('the owner cannot revise, nor read the desk’s revisions', async () => {
+      const owner = await ownerCookie(held.ownerEmail);
+      const before = await stored(held);
+      const posted = await asPerson(owner, `/api/leads/${held.id}/revisions`, { method: 'POST', body: await revision(held) });
+      expect(posted.status).toBe(403);
+      expect(await posted.json()).toMatchObject({ error: { code: 'FORBIDDEN' } });
+      expect((await asPerson(owner, `/api/leads/${held.id}/revisions`)).status).toBe(403);
+      expect((await asPerson(owner, `/desk/leads/${held.id}/site-walk`)).status).toBe(403);
+      expect(await stored(held)).toBe(before);
+    });
+
+    it('a consultant who has not claimed the lead cannot revise it, whether another holds it or nobody does', async () => {
+      const before = await stored(held);
+      const other = await asPerson(inRegionB, `/api/leads/${held.id}/revisions`, { method: 'POST', body: await revision(held, before) });
+      expect(other.status).toBe(403);
+      expect(((await other.json()) as { error: { message: string } }).error.message).toBe('Currawong Thermal holds this lead; only they (or an admin) can work on it.');
+      const unclaimed = await asPerson(inRegionB, `/api/leads/${open.id}/revisions`, { method: 'POST', body: await revision(open) });
+      expect(unclaimed.status).toBe(403);
+      expect(((await unclaimed.json()) as { error: { message: string } }).error.message).toBe('Claim this lead before working on it.');
+      expect((await asPerson(inRegionB, `/desk/leads/${held.id}/site-walk`)).status).toBe(403);
+      expect(await stored(held)).toBe(before);
+      expect(await stored(open)).toBe(0);
+    });
+
+    it('the consultant of the region who does not hold the lead reads its revisions without their reasons or any contact data', async () => {
+      const body = await revision(held, await stored(held));
+      const saved = await asPerson(inRegionA, `/api/leads/${held.id}/revisions`, { method: 'POST', body });
+      expect(saved.status, await saved.clone().text()).toBe(201);
+      const seen = await asPerson(inRegionB, `/api/leads/${held.id}/revisions`);
+      expect(seen.status).toBe(200);
+      const text = await seen.text();
+      expect(text).not.toContain(body.reason);
+      for (const secret of contactOf(held)) expect(text).not.toContain(secret);
+      const parsed = JSON.parse(text) as { revisions: { reason: string | null; author: { firm: string } }[]; allowed: { revise: boolean } };
+      expect(parsed.revisions.at(-1)).toMatchObject({ reason: null, author: { firm: 'Currawong Thermal' } });
+      expect(parsed.allowed.revise).toBe(false);
+      const holderView = (await (await asPerson(inRegionA, `/api/leads/${held.id}/revisions`)).json()) as { revisions: { reason: string | null }[] };
+      expect(holderView.revisions.at(-1)?.reason).toBe(body.reason);
+    });
+
+    it('an admin may revise a lead another consultant holds', async () => {
+      const response = await asPerson(admin, `/api/leads/${held.id}/revisions`, { method: 'POST', body: await revision(held, await stored(held)) });
+      expect(response.status, await response.clone().text()).toBe(201);
+    });
   });
 
   it('a banned consultant’s open session stops working on its next request, and is ended', async () => {

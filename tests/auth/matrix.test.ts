@@ -78,6 +78,7 @@ const rows: Row[] = [
   { method: 'GET', route: '/desk', path: () => '/desk', expect: deskPage() },
   { method: 'GET', route: '/desk/mine', path: () => '/desk/mine', expect: deskPage() },
   { method: 'GET', route: '/desk/leads/[id]', path: (w) => `/desk/leads/${lead(w)}`, expect: deskPage({ out: 404 }) },
+  { method: 'GET', route: '/desk/leads/[id]/site-walk', path: (w) => `/desk/leads/${lead(w)}/site-walk`, expect: deskPage({ out: 404 }) },
   { method: 'GET', route: '/admin', path: () => '/admin', expect: { ...deskPage(), consultantIn: 403, consultantOut: 403 } },
   { method: 'GET', route: '/api/health', path: () => '/api/health', expect: all(200) },
   { method: 'ALL', route: '/api/auth/[...all]', path: () => '/api/auth/ok', expect: all(200) },
@@ -126,6 +127,14 @@ const rows: Row[] = [
   { method: 'GET', route: '/api/admin/activity', path: () => '/api/admin/activity', expect: adminApi(200) },
   { method: 'GET', route: '/api/admin/settings', path: () => '/api/admin/settings', expect: adminApi(200) },
   { method: 'PATCH', route: '/api/admin/settings', path: () => '/api/admin/settings', body: { json: {} }, expect: adminApi(400) },
+  { method: 'GET', route: '/api/leads/[id]/revisions', path: (w) => `/api/leads/${lead(w)}/revisions`, expect: deskApi({ inRegion: 200, out: 404 }) },
+  {
+    method: 'POST',
+    route: '/api/leads/[id]/revisions',
+    path: (w) => `/api/leads/${lead(w)}/revisions`,
+    body: { json: { baseNumber: 0, reason: '' } },
+    expect: deskApi({ inRegion: 400, out: 404 }),
+  },
   { method: 'POST', route: '/api/sign-out', path: () => '/api/sign-out', body: { form: {} }, expect: all(303) },
 ];
 

@@ -4,6 +4,7 @@
  * only the consultant holding the lead and admins.
  */
 import { getDb } from '../../db/client';
+import type { LeadRecord } from '../../db/queries/leads';
 import type { RevisionListResponse } from '../../schemas/revisions';
 import { leadPartsFor } from '../leads/access';
 import { reachableLead } from '../leads/work';
@@ -16,6 +17,8 @@ export interface RevisionHistory {
   response: RevisionListResponse;
   /** The same states with their results typed, for pages that lay them out. */
   states: readonly StoredState[];
+  /** The lead as the viewer reaches it (pages say who holds it, and its stage). */
+  found: LeadRecord;
 }
 
 export async function getRevisionHistoryFor(user: SessionUser, leadId: string | undefined): Promise<RevisionHistory> {
@@ -26,6 +29,7 @@ export async function getRevisionHistoryFor(user: SessionUser, leadId: string | 
   if (!original) throw new Error('a lead always has its original state');
   return {
     states,
+    found,
     response: {
       lead: { id, reference: found.lead.reference, latestNumber: revisions.length ? revisions[revisions.length - 1]!.number : 0 },
       original: revisionView(original, parts.timeline),

@@ -5,9 +5,11 @@
 import type { Executor } from '../../db/client';
 import { listRevisions, listRunSpecs, type RevisionRow } from '../../db/queries/revisions';
 import type { Assessment } from '../../db/schema';
-import { ENGINE_VERSION, estimatePlant, isEngineError, type PlantResult } from '../../engine';
+import { readStoredResult, storedPlantInput, type StoredResultReading } from '../assessments/stored-result';
 import type { RevisionView } from '../../schemas/revisions';
 import type { InventoryState } from './diff';
+
+type ReadableReading = Exclude<StoredResultReading, { status: 'unreadable' }>;
 
 /** One stored state with who saved it, when and why. */
 export interface StoredState extends InventoryState {
@@ -17,46 +19,36 @@ export interface StoredState extends InventoryState {
   readonly reason: string | null;
   /** The engine version of `result` (today's when the stored figures were worked out again). */
   readonly engineVersion: string;
+  /** How the figures were read (as stored, or worked out again), for the page's provenance line. */
+  readonly reading: ReadableReading;
   readonly clientKey: string | null;
 }
 
-/**
- * The owner's answers as the engine takes them: the questionnaire's estimate answers (stored
- * without the runs) with each run's spec, in the owner's order.
- */
-export function originalPlantInput(questionnaire: unknown, runSpecs: readonly unknown[]): Record<string, unknown> {
-  const estimate = (questionnaire as { estimate?: unknown } | null)?.estimate;
-  const answers = typeof estimate === 'object' && estimate !== null ? (estimate as Record<string, unknown>) : {};
-  return { ...answers, runs: [...runSpecs] };
-}
+/** A stored state's figures can no longer be read: neither its snapshot nor its inputs are taken today. */
+export class UnreadableStateError extends Error {}
 
 /**
- * A stored result made by this engine is read as stored; one made by another version is worked
- * out again from its inputs (the engine is deterministic), so a diff shows what the answers
- * changed and not what the method did. If today's engine refuses the old inputs, the stored
- * figures stand.
+ * Each state's figures come through the one reader of stored results, so a revision made by an
+ * older engine is worked out again from its inputs (a diff then shows what the answers changed,
+ * not what the method did) and the page says so.
  */
-function readResult(snapshot: unknown, engineVersion: string, plant: unknown): { result: PlantResult; engineVersion: string } {
-  if (engineVersion !== ENGINE_VERSION) {
-    try {
-      return { result: estimatePlant(plant as never), engineVersion: ENGINE_VERSION };
-    } catch (error) {
-      if (!isEngineError(error)) throw error;
-    }
-  }
-  return { result: snapshot as PlantResult, engineVersion };
+function readState(snapshot: unknown, engineVersion: string, plant: unknown): ReadableReading {
+  const reading = readStoredResult({ resultSnapshot: snapshot, engineVersion, input: plant });
+  if (reading.status === 'unreadable') throw new UnreadableStateError(reading.reason);
+  return reading;
 }
 
 /** The owner's original state of a lead. */
 export async function loadOriginal(db: Executor, lead: Assessment): Promise<StoredState> {
-  const plant = originalPlantInput(lead.questionnaire, await listRunSpecs(db, lead.id));
-  const read = readResult(lead.resultSnapshot, lead.engineVersion, plant);
+  const plant = storedPlantInput(lead.questionnaire, await listRunSpecs(db, lead.id));
+  const read = readState(lead.resultSnapshot, lead.engineVersion, plant);
   return {
     number: 0,
     baseNumber: null,
     plant,
     result: read.result,
-    engineVersion: read.engineVersion,
+    engineVersion: read.computedBy,
+    reading: read,
     savedAt: lead.createdAt,
     author: null,
     reason: null,
@@ -65,13 +57,14 @@ export async function loadOriginal(db: Executor, lead: Assessment): Promise<Stor
 }
 
 export function revisionState(row: RevisionRow): StoredState {
-  const read = readResult(row.resultSnapshot, row.engineVersion, row.plantInput);
+  const read = readState(row.resultSnapshot, row.engineVersion, row.plantInput);
   return {
     number: row.number,
     baseNumber: row.baseNumber,
     plant: row.plantInput,
     result: read.result,
-    engineVersion: read.engineVersion,
+    engineVersion: read.computedBy,
+    reading: read,
     savedAt: row.createdAt,
     author: row.authorName ? { name: row.authorName, firm: row.authorFirm ?? null } : null,
     reason: row.reason,
