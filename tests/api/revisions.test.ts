@@ -223,6 +223,19 @@ describe('site-walk revisions over HTTP', () => {
     expect((await history(holder, lead.id)).allowed.revise).toBe(false);
   });
 
+  it('is described in /api/openapi.json from the schemas the endpoint parses and answers with', async () => {
+    const doc = (await (await appFetch('/api/openapi.json')).json()) as {
+      paths: Record<string, Record<string, { responses: Record<string, unknown> }>>;
+      components: { schemas: Record<string, { properties?: Record<string, unknown> }> };
+    };
+    const path = doc.paths['/api/leads/{id}/revisions']!;
+    expect(Object.keys(path).sort()).toEqual(['get', 'post']);
+    expect(Object.keys(path.post!.responses)).toEqual(expect.arrayContaining(['200', '201', '400', '401', '403', '404', '409']));
+    expect(Object.keys(doc.components.schemas.RevisionRequest!.properties!).sort()).toEqual(['areas', 'baseNumber', 'clientKey', 'reason', 'runs']);
+    expect(Object.keys(doc.components.schemas.RevisionList!.properties!).sort()).toEqual(['allowed', 'diff', 'lead', 'original', 'revisions']);
+    expect(Object.keys(doc.components.schemas.RevisionSaved!.properties!).sort()).toEqual(['diff', 'replayed', 'revision']);
+  });
+
   describe('bad input: 400 with the field path and a sentence in the field’s words and units', () => {
     let lead: SubmittedLead;
     let runs: PlantRunInput[];

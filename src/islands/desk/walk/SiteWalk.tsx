@@ -16,6 +16,7 @@ import { freshDraft, newClientKey, newRun, plantOf, resetRoom, revisionRequestOf
 import { Choices, SelectInput } from './fields';
 import { useLiveFigures, type DraftIssue, type PlantFigures } from './figures';
 import { fetchRevisions } from '../../../lib/desk-client';
+import { keepPageForOffline } from './offline';
 import { draftStore, sendDraft, type SendOutcome } from './outbox';
 import { RunEditor } from './RunEditor';
 import { problemInUnits, ROOM_FIELD_WORDS, RUN_FIELD_WORDS, SERVICE_OPTIONS } from './words';
@@ -147,10 +148,14 @@ export default function SiteWalk({ leadId, reference, leadUrl, base, plantAnswer
   const attempted = useRef(false);
   const system = draft.system;
 
-  // The first change writes the draft to the phone; until then it is the base itself.
+  // The draft is written to the phone at once, with its key; the page is kept for a reload without signal.
+  const leaving = useRef(false);
   useEffect(() => {
-    if (!stored) store.set(draft);
+    if (!stored && !leaving.current) store.set(draft);
   }, [stored, store, draft]);
+  useEffect(() => {
+    void keepPageForOffline();
+  }, []);
 
   const change = useCallback(
     (edit: (d: WalkDraft) => WalkDraft) => {
@@ -183,6 +188,8 @@ export default function SiteWalk({ leadId, reference, leadUrl, base, plantAnswer
     inFlight.current = false;
     setSending(false);
     if (result.kind === 'saved') {
+      // Sent: nothing is left on the phone, and no fresh draft is started on the way out.
+      leaving.current = true;
       store.set(undefined);
       window.location.assign(`${leadUrl}?revised=${result.number}#site-walk`);
       return;
@@ -236,6 +243,7 @@ export default function SiteWalk({ leadId, reference, leadUrl, base, plantAnswer
   const changedByThem = latestNumber !== null ? theirChanges(history, draft.baseNumber) : null;
 
   function startAgain() {
+    leaving.current = true;
     store.set(undefined);
     window.location.reload();
   }
