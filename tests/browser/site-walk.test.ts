@@ -213,6 +213,12 @@ describe('the site walk, in a browser', () => {
     const runs = (stored[0]!.plantInput as { runs: { id: string; measurements?: { lengthM?: number } }[] }).runs;
     expect(runs.find((r) => r.id === 'hw-1')?.measurements?.lengthM).toBe(14.2);
     expect(await page.evaluate((key) => localStorage.getItem(key), `lagwise:walk:v1:${lead.id}`)).toBeNull();
+
+    // Signing out takes the page copy off the phone.
+    expect(await page.evaluate(() => caches.has('lagwise-walk-v1'))).toBe(true);
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await page.waitForURL((to) => !to.pathname.startsWith('/desk'));
+    await expect.poll(() => page.evaluate(() => caches.has('lagwise-walk-v1'))).toBe(false);
     await context.close();
   });
 

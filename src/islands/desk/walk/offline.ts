@@ -9,7 +9,7 @@ const CACHE = 'lagwise-walk-v1';
 export async function keepPageForOffline(): Promise<void> {
   if (!('serviceWorker' in navigator) || !('caches' in window)) return;
   try {
-    await navigator.serviceWorker.register('/walk-sw.js', { scope: '/desk/leads/' });
+    await navigator.serviceWorker.register('/walk-sw.js', { scope: '/' });
     const files = performance
       .getEntriesByType('resource')
       .map((entry) => new URL(entry.name))
