@@ -12,6 +12,7 @@ import { DEMO_PASSWORD, demoAccounts, demoRegions } from './demo-people.ts';
 import { seedDemoAssessments } from './demo-assessments.ts';
 import { seedDeskDemo } from './demo-desk.ts';
 import { seedAdminDemo } from './demo-admin.ts';
+import { seedDemoRevisions } from './demo-revisions.ts';
 
 async function seedRegions(): Promise<Map<string, string>> {
   const db = getDb();
@@ -63,8 +64,9 @@ export async function seedDemo(): Promise<void> {
     const accounts = await seedAccounts(regionIds);
     const assessments = (await seedDemoAssessments()) + (await seedAdminDemo());
     const desk = await seedDeskDemo();
+    const walks = await seedDemoRevisions();
     console.log(
-      `[seed] demo data ready: ${regionIds.size} regions, ${accounts} new accounts, ${assessments + desk.submitted} new assessments, ${desk.histories} desk histories played`,
+      `[seed] demo data ready: ${regionIds.size} regions, ${accounts} new accounts, ${assessments + desk.submitted} new assessments, ${desk.histories} desk histories played, ${walks} site walks saved`,
     );
   } finally {
     await stopSender();

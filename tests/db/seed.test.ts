@@ -3,6 +3,7 @@ import pg from 'pg';
 import { describe, expect, it } from 'vitest';
 import { demoSubmissions } from '../../scripts/seed/demo-assessments';
 import { deskDemoHistories, deskDemoLeads } from '../../scripts/seed/demo-desk';
+import { demoWalks } from '../../scripts/seed/demo-revisions';
 import { demoAccounts, demoRegions } from '../../scripts/seed/demo-people';
 import { adminDemoClaims, adminDemoSubmissions, AT_CAP_CONSULTANT } from '../../scripts/seed/demo-admin';
 import { stack } from '../support/stack';
@@ -27,6 +28,7 @@ async function demoCounts(): Promise<Record<string, number>> {
       runs: await count('select count(*) as n from pipe_runs r join assessments a on a.id = r.assessment_id where a.idempotency_key = any($1)', [keys]),
       activity: await count('select count(*) as n from activity_log l join assessments a on a.id = l.assessment_id where a.idempotency_key = any($1)', [keys]),
       profiles: await count('select count(*) as n from consultant_profiles p join "user" u on u.id = p.user_id where u.email = any($1)', [emails]),
+      revisions: await count('select count(*) as n from lead_revisions r join assessments a on a.id = r.assessment_id where a.idempotency_key = any($1)', [keys]),
     };
   } finally {
     await client.end();
@@ -44,9 +46,10 @@ describe('demo data', () => {
       passwords: demoAccounts.length,
       assessments: demoSubmissions.length + deskDemoLeads.length + adminDemoSubmissions.length,
       runs: [...demoSubmissions, ...deskDemoLeads, ...adminDemoSubmissions].flatMap((s) => s.input.estimate.runs).length,
-      // One entry per submission, one per step of each desk history, one per claim of the consultant at their cap.
-      activity: keys.length + [...deskDemoLeads, ...deskDemoHistories].reduce((n, d) => n + d.steps.length, 0) + adminDemoClaims,
+      // One entry per submission, one per step of each desk history, one per claim of the consultant at their cap, one per site walk.
+      activity: keys.length + [...deskDemoLeads, ...deskDemoHistories].reduce((n, d) => n + d.steps.length, 0) + adminDemoClaims + demoWalks.length,
       profiles: demoAccounts.filter((a) => a.role === 'consultant').length,
+      revisions: demoWalks.length,
     });
 
     execFileSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], { env: process.env, stdio: 'pipe' });
@@ -101,6 +104,31 @@ describe('the demo desk', () => {
         [keys],
       );
       expect(Number(released.rows[0]!.n)).toBe(1);
+    } finally {
+      await client.end();
+    }
+  });
+});
+
+describe('the demo site walks', () => {
+  it('give every demo consultant one lead of their own with a site-walk revision, its figures on the lead', async () => {
+    const client = new pg.Client({ connectionString: stack.databaseUrl });
+    await client.connect();
+    try {
+      for (const consultant of demoAccounts.filter((a) => a.role === 'consultant')) {
+        const walked = await client.query<{ key: string; revision_number: number; author: string; annual_loss_cost: number; likely: number; runs: number }>(
+          `select a.idempotency_key as key, a.revision_number, u.email as author, a.annual_loss_cost,
+                  (r.result_snapshot #>> '{range,currentAnnualCost,likely}')::float8 as likely, jsonb_array_length(r.plant_input -> 'runs') as runs
+           from lead_revisions r join assessments a on a.id = r.assessment_id join "user" u on u.id = r.author_user_id
+           where a.claimed_by_user_id = u.id and u.email = $1 and a.idempotency_key = any($2)`,
+          [consultant.email, keys],
+        );
+        expect(walked.rows, consultant.email).toHaveLength(1);
+        const row = walked.rows[0]!;
+        expect(row.revision_number).toBe(1);
+        expect(row.annual_loss_cost).toBe(row.likely);
+        expect(demoWalks.find((w) => w.key === row.key)?.by).toBe(consultant.email);
+      }
     } finally {
       await client.end();
     }
