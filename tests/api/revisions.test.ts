@@ -36,7 +36,7 @@ function post(cookie: string, id: string, body: unknown): Promise<Response> {
 
 /** A lead of the tests' region, claimed by the holder. */
 async function heldLead(): Promise<SubmittedLead> {
-  const lead = await submitLead('3901', { email: `walk.${randomUUID().slice(0, 8)}@ironbark-creamery.example` });
+  const lead = await submitLead('2801', { email: `walk.${randomUUID().slice(0, 8)}@ironbark-creamery.example` });
   const claimed = await asPerson(holder, `/api/leads/${lead.id}/claim`, { method: 'POST', body: {} });
   expect(claimed.status).toBe(200);
   return lead;
@@ -53,7 +53,7 @@ function walked(runs: PlantRunInput[], changes: Record<string, Partial<PlantRunI
 
 describe('site-walk revisions over HTTP', () => {
   beforeAll(async () => {
-    const region = await ensureDeskRegion('test-walk-ironbark', 'Ironbark Ridge (revisions)', ['39']);
+    const region = await ensureDeskRegion('test-walk-ironbark', 'Ironbark Ridge (revisions)', ['28']);
     await ensureConsultant({ email: holderEmail, name: 'Rhea Ironbark', firm: 'Ironbark Lagging', regionIds: [region], cap: 50 });
     holder = await passwordCookie(holderEmail);
   });
