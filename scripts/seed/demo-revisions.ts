@@ -3,7 +3,8 @@
  * through the same domain function the API calls (saveRevision), so the revision, the lead's
  * figures and the timeline entry are made exactly as a walk makes them. A lead that has any
  * revision already is left as it is, so seeding twice changes nothing. The walks belong to the
- * invented plants of ./demo-desk.ts and ./demo-assessments.ts, found by their submission keys.
+ * invented plants of ./demo-desk.ts, ./demo-admin.ts and ./demo-assessments.ts, found by their
+ * submission keys.
  */
 import { eq } from 'drizzle-orm';
 import { getDb } from '../../src/db/client';
@@ -100,6 +101,14 @@ export const demoWalks: DemoWalk[] = [
           current: { state: 'bare' },
         },
       ],
+    }),
+  },
+  {
+    key: 'demo-admin-pellham-cider',
+    by: 'ottilie@marsh-finch.example',
+    reason: 'Walked the tunnel line with Ruth: 23.5 m, four valves not three, probe reading at the tunnel end.',
+    walk: (runs) => ({
+      runs: edit(runs, 'main', (run) => ({ ...run, valves: 4, measurements: { lengthM: 23.5, surfaceTemperatureC: 149, airTemperatureC: 21, surfaceMethod: 'contact' } })),
     }),
   },
   {
