@@ -55,7 +55,7 @@ export function fetchRevisions(leadId: string, signal?: AbortSignal): Promise<Ap
   return send(
     `/api/leads/${encodeURIComponent(leadId)}/revisions`,
     { headers: { accept: 'application/json' }, ...(signal ? { signal } : {}) },
-    parsesWith<RevisionListResponse>(revisionListResponseSchema),
+    revisionListResponseSchema,
   );
 }
 
@@ -64,6 +64,6 @@ export function saveRevision(leadId: string, revision: RevisionRequestInput, sig
   return send(
     `/api/leads/${encodeURIComponent(leadId)}/revisions`,
     { ...jsonPost(revision), ...(signal ? { signal } : {}) },
-    parsesWith<RevisionSavedResponse>(revisionSavedResponseSchema),
+    revisionSavedResponseSchema,
   );
 }

@@ -108,6 +108,7 @@ export async function saveRevision(user: SessionUser, leadId: string | undefined
     plant: parsed.data,
     result,
     engineVersion: ENGINE_VERSION,
+    reading: { status: 'as-stored', result, computedBy: ENGINE_VERSION },
     savedAt: new Date(),
     author: null,
     reason: request.reason,

@@ -5,33 +5,15 @@
  * (the shared presentation's), never rounded here.
  */
 import { AREA_PRESETS, INSULATION_MATERIALS, PIPE_MATERIALS, SERVICE_DEFAULTS, SURFACES, type RunWarningCode } from '../../engine';
-import { formatCo2, formatFigure, formatMoney, formatQuantity, formatYears, type DisplayQuantity, type UnitSystem } from '../units-display';
+import { displayFormat, type DisplayFormat, type UnitSystem } from '../presentation';
 import type { InputChange, InputField, RunFigureChange, TotalFigureChange } from '../../schemas/revisions';
 
-/** The formatters a diff is written with (the presentation's DisplayFormat has these). */
-export interface DiffFormat {
-  readonly system: UnitSystem;
-  quantity(valueSI: number, quantity: DisplayQuantity): string;
-  temperature(celsius: number): string;
-  thickness(metres: number): string;
-  money(value: number): string;
-  years(value: number | null): string;
-  percent(fraction: number): string;
-  co2(kg: number): string;
-}
+/** The formatters a diff is written with: the shared presentation's, so a diff rounds as every other page. */
+export type DiffFormat = Pick<DisplayFormat, 'system' | 'quantity' | 'temperature' | 'thickness' | 'money' | 'years' | 'percent' | 'co2'>;
 
-/** The formatters of ../units-display as a DiffFormat. */
+/** The shared presentation's formatters for a reader in `system` and a plant paying in `currency`. */
 export function diffFormat(system: UnitSystem, currency: string): DiffFormat {
-  return {
-    system,
-    quantity: (value, quantity) => formatQuantity(value, quantity, system),
-    temperature: (celsius) => formatQuantity(celsius, 'temperature', system, { maxDecimals: 0, significant: 4 }),
-    thickness: (metres) => formatQuantity(metres, 'thickness', system, { maxDecimals: system === 'US' ? 2 : 0 }),
-    money: (value) => formatMoney(value, currency),
-    years: (value) => formatYears(value),
-    percent: (fraction) => `${formatFigure(fraction * 100, { maxDecimals: 0 })} %`,
-    co2: (kg) => formatCo2(kg),
-  };
+  return displayFormat({ system, currency });
 }
 
 /** What each compared input is called. */

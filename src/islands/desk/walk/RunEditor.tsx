@@ -4,7 +4,7 @@
  * runs at, the lagging as found, valves and flanges, the air around it, and a surface reading.
  */
 import { serviceDefaults, type ServiceId } from '../../../engine';
-import { formatMoney, formatQuantity, formatYears, type UnitSystem } from '../../../lib/units-display';
+import { displayFormat, formatQuantity, type UnitSystem } from '../../../lib/presentation';
 import { getIn, presetOf, setIn, setRoom, updateRun, walkRoomOf, type RunInput, type WalkBase, type WalkDraft } from './draft';
 import { CheckInput, Choices, Counter, NumberInput, SelectInput, TextInput } from './fields';
 import type { RunFigures } from './figures';
@@ -54,10 +54,11 @@ function loss(figures: RunFigures, system: UnitSystem): string {
 }
 
 function FigureLine({ label, figures, system, currency }: { label: string; figures: RunFigures; system: UnitSystem; currency: string }) {
+  const f = displayFormat({ system, currency });
   return (
     <p className="walk-figure-line">
-      <span className="walk-figure-label">{label}</span> {loss(figures, system)} · {formatMoney(figures.annualCost, currency)} a year · saves{' '}
-      {formatMoney(figures.annualSaving, currency)} · pays back {formatYears(figures.paybackYears)}
+      <span className="walk-figure-label">{label}</span> {loss(figures, system)} · {f.money(figures.annualCost)} a year · saves{' '}
+      {f.money(figures.annualSaving)} · pays back {f.years(figures.paybackYears)}
     </p>
   );
 }

@@ -9,7 +9,7 @@ import { useStore } from '@nanostores/react';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { SERVICE_DEFAULTS, type ServiceId } from '../../../engine';
 import { diffStates } from '../../../lib/revisions/diff';
-import { formatMoney, formatYears, type UnitSystem } from '../../../lib/units-display';
+import { displayFormat, type UnitSystem } from '../../../lib/presentation';
 import type { RevisionListResponse } from '../../../schemas/revisions';
 import type { PlantResult } from '../../../engine';
 import { freshDraft, newClientKey, newRun, plantOf, resetRoom, revisionRequestOf, runChanged, WALK_ROOM_PREFIX, type WalkBase, type WalkDraft } from './draft';
@@ -89,12 +89,13 @@ function sortProblems(issues: readonly DraftIssue[], runIds: readonly string[], 
 }
 
 function Totals({ before, now, system }: { before: PlantFigures; now: PlantFigures | null; system: UnitSystem }) {
-  const money = (value: number) => formatMoney(value, before.currency);
+  const f = displayFormat({ system, currency: before.currency });
+  const money = (value: number) => f.money(value);
   const rows = [
     { label: 'Lost a year', before: money(before.lossCost.likely), now: now ? money(now.lossCost.likely) : '…', note: now ? `likely ${money(now.lossCost.low)}–${money(now.lossCost.high)}` : '' },
     { label: 'Saving a year', before: money(before.saving), now: now ? money(now.saving) : '…', note: '' },
     { label: 'Installed cost', before: money(before.installedCost), now: now ? money(now.installedCost) : '…', note: 'illustrative prices' },
-    { label: 'Pays back in', before: formatYears(before.paybackYears), now: now ? formatYears(now.paybackYears) : '…', note: '' },
+    { label: 'Pays back in', before: f.years(before.paybackYears), now: now ? f.years(now.paybackYears) : '…', note: '' },
   ];
   return (
     <table className="walk-totals">

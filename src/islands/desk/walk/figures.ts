@@ -80,10 +80,8 @@ export function checkPlant(plant: PlantInput): DraftIssue[] {
   }));
 }
 
-function isEstimateAnswer(body: unknown): body is { result: PlantResult } {
-  const result = (body as { result?: { runs?: unknown } } | null)?.result;
-  return typeof result === 'object' && result !== null && Array.isArray(result.runs);
-}
+/** The estimate's answer schema, loaded with the first answer (the form needs nothing of it before). */
+const estimateAnswer = () => import('../../../schemas/answers').then((m) => m.estimateAnswerSchema);
 
 export type LiveState =
   | { readonly kind: 'ready'; readonly figures: PlantFigures }
@@ -119,7 +117,7 @@ export function useLiveFigures(plant: PlantInput, online: boolean): LiveState {
       const answer = await send(
         '/api/estimate?detail=summary',
         { method: 'POST', headers: { 'content-type': 'application/json', accept: 'application/json' }, body: key, signal: controller.signal },
-        isEstimateAnswer,
+        estimateAnswer,
       );
       if (controller.signal.aborted) return;
       if (answer.ok) {

@@ -14,7 +14,8 @@ import {
   type PipeStandard,
   type RangeIssueParams,
 } from '../../../engine';
-import { displayUnit, formatFigure, formatQuantity, type DisplayQuantity, type UnitSystem } from '../../../lib/units-display';
+import { displayUnit, type DisplayQuantity } from '../../../lib/units-display';
+import { formatNumber, formatQuantity, type UnitSystem } from '../../../lib/presentation';
 import type { Option } from './fields';
 
 export const SERVICE_OPTIONS: Option[] = SERVICE_DEFAULTS.map((s) => ({ value: s.id, label: s.name }));
@@ -39,7 +40,7 @@ export function sizeOptions(standard: PipeStandard | undefined, system: UnitSyst
   if (!standard) return [];
   return standard.sizes.map((entry: PipeSizeEntry) => ({
     value: entry.size,
-    label: `${entry.size}${/^\d/.test(entry.size) ? ' in' : ''} · ${formatQuantity(entry.outerDiameterM, 'diameter', system, { significant: 4, maxDecimals: system === 'US' ? 3 : 1 })} across`,
+    label: `${entry.size}${/^\d/.test(entry.size) ? ' in' : ''} · ${formatQuantity(entry.outerDiameterM, 'diameter', system, 4)} across`,
   }));
 }
 
@@ -48,7 +49,7 @@ export function scheduleOptions(standard: PipeStandard | undefined, size: string
   if (!entry) return [];
   return Object.entries(entry.wallsM).map(([key, wallM]) => ({
     value: key,
-    label: `${/^\d/.test(key) ? `Schedule ${key}` : key} · wall ${formatQuantity(wallM, 'thickness', system, { significant: 3, maxDecimals: system === 'US' ? 3 : 1 })}`,
+    label: `${/^\d/.test(key) ? `Schedule ${key}` : key} · wall ${formatQuantity(wallM, 'thickness', system, 3)}`,
   }));
 }
 
@@ -80,7 +81,7 @@ export function nameOf(options: readonly Option[], id: unknown): string {
 
 /** A temperature difference in the reader's unit: "5 K" or "9 °F". */
 export function temperatureDifference(kelvin: number, system: UnitSystem): string {
-  return system === 'US' ? `${formatFigure(kelvin * 1.8)} °F` : `${formatFigure(kelvin)} K`;
+  return system === 'US' ? `${formatNumber(kelvin * 1.8)} °F` : `${formatNumber(kelvin)} K`;
 }
 
 /** A field's label and the quantity its number is, for saying a problem again in the reader's units. */
@@ -101,7 +102,7 @@ function limitWords(params: RangeIssueParams): string {
 export function problemInUnits(message: string, params: RangeIssueParams | undefined, field: FieldWords | undefined, system: UnitSystem): string {
   if (!params || !field?.quantity) return message;
   const unit = displayUnit(field.quantity, system);
-  const say = (si: number) => `${formatFigure(unit.fromBase(si), { significant: 4, maxDecimals: 2 })} ${unit.symbol}`;
+  const say = (si: number) => `${formatNumber(unit.fromBase(si), 4)} ${unit.symbol}`;
   return `${field.label} must be ${limitWords(params)} ${say(params.limitSI)}; ${say(params.givenSI)} was given.`;
 }
 
