@@ -138,9 +138,9 @@ describe('the site walk, in a browser', () => {
     expect(await run.locator('.compare-badge').innerText()).toBe('Corrected');
     expect(await run.innerText()).toContain('Changed in revision 1 by Nell Banksia (Banksia Lagging)');
     const lengthRow = run.locator('tr', { has: page.locator('th', { hasText: /^Length$/ }) });
-    expect(await lengthRow.locator('td').allInnerTexts()).toEqual([expect.stringContaining('20 m'), expect.stringContaining('26.5 m, measured')]);
+    expect(await lengthRow.locator('td').allInnerTexts()).toEqual([expect.stringContaining('20\u00a0m'), expect.stringContaining('26.5\u00a0m, measured')]);
     const readingRow = run.locator('tr', { has: page.locator('th', { hasText: /^Surface reading$/ }) });
-    expect(await readingRow.locator('td').allInnerTexts()).toEqual([expect.stringContaining('none taken'), expect.stringContaining('152 °C by contact probe, air 24 °C')]);
+    expect(await readingRow.locator('td').allInnerTexts()).toEqual([expect.stringContaining('none taken'), expect.stringContaining('152\u00a0°C by contact probe, air 24\u00a0°C')]);
     const costRow = run.locator('tr', { has: page.locator('th', { hasText: /^Cost a year$/ }) });
     const [costBefore, costAfter] = await costRow.locator('td').allInnerTexts();
     expect(costBefore).not.toBe(costAfter);
