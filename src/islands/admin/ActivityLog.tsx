@@ -168,6 +168,7 @@ export default function ActivityLog({ initial, query: initialQuery, people, fami
         </p>
       )}
       {data.entries.length > 0 && (
+        <div className="lead-table-box" tabIndex={0} role="region" aria-label="The activity log, as a table">
         <table className="lead-table activity-table" aria-busy={busy}>
           <caption className="sr-only">The activity log, newest first</caption>
           <thead>
@@ -193,6 +194,7 @@ export default function ActivityLog({ initial, query: initialQuery, people, fami
             ))}
           </tbody>
         </table>
+        </div>
       )}
       {data.pageCount > 1 && (
         <nav aria-label="Pages of the activity log" className="flex flex-wrap items-center gap-3">

@@ -319,6 +319,7 @@ export default function OpenLeads({ initial, query: initialQuery, regions, plant
       )}
 
       {data.items.length > 0 && (
+        <div className="lead-table-box" tabIndex={0} role="region" aria-label="Open leads, as a table">
         <table className="lead-table" aria-busy={busy}>
           <caption className="sr-only">Open leads in my regions; column headers sort the list</caption>
           <thead>
@@ -361,6 +362,7 @@ export default function OpenLeads({ initial, query: initialQuery, regions, plant
             ))}
           </tbody>
         </table>
+        </div>
       )}
 
       {data.pageCount > 1 && (
