@@ -30,6 +30,11 @@ export interface Rates {
   readonly electricityJPerJHeat: number;
 }
 
+/** The yearly cost alone of a heat flow the system pays for, W (as {@link annualFigures} reckons it). */
+export function annualCostOf(heatW: number, hours: number, rates: Rates): number {
+  return heatW * hours * SECONDS_PER_HOUR * rates.costPerJHeat;
+}
+
 /** The yearly figures of a heat flow the system pays for, W, over `hours` a year. */
 export function annualFigures(heatW: number, hours: number, rates: Rates, fuel: Fuel, latentHeatJPerKg: number | null): AnnualFigures {
   const heatJ = heatW * hours * SECONDS_PER_HOUR;

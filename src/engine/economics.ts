@@ -108,14 +108,26 @@ export function simplePaybackYears(installedCost: number, annualCostSaving: numb
   return annualCostSaving > 0 ? installedCost / annualCostSaving : null;
 }
 
-function interpolateIndex(values: readonly number[], x: number): { i: number; w: number } {
+/** Index of the segment of ascending `values` that x falls in (the end segments extend beyond). */
+function segmentIndex(values: readonly number[], x: number): number {
   const n = values.length;
-  if (n === 1) return { i: 0, w: 0 };
   let i = 0;
   while (i < n - 2 && x > (values[i + 1] as number)) i++;
+  return i;
+}
+
+/** Weight of x along segment i of `values` (0 at its start, 1 at its end). */
+function segmentWeight(values: readonly number[], i: number, x: number): number {
   const x0 = values[i] as number;
   const x1 = values[i + 1] as number;
-  return { i, w: (x - x0) / (x1 - x0) };
+  return (x - x0) / (x1 - x0);
+}
+
+/** One row of the price table at a thickness (linear between its columns). */
+function rowAt(table: InstalledCostTable, r: number, ti: number, tw: number): number {
+  const cells = table.costPerMetre[r] as readonly number[];
+  if (table.thicknessesM.length === 1) return cells[0] as number;
+  return (cells[ti] as number) + tw * ((cells[ti + 1] as number) - (cells[ti] as number));
 }
 
 /**
@@ -126,16 +138,14 @@ function interpolateIndex(values: readonly number[], x: number): { i: number; w:
 export function installedCostPerMetre(table: InstalledCostTable, pipeOuterDiameterM: number, thicknessM: number): number {
   const ods = table.pipeOuterDiametersM;
   const ts = table.thicknessesM;
-  const row = (r: number): number => {
-    const cells = table.costPerMetre[r] as readonly number[];
-    if (ts.length === 1) return cells[0] as number;
-    const { i, w } = interpolateIndex(ts, thicknessM);
-    return (cells[i] as number) + w * ((cells[i + 1] as number) - (cells[i] as number));
-  };
-  if (ods.length === 1) return Math.max(0, row(0));
-  const { i, w } = interpolateIndex(ods, pipeOuterDiameterM);
-  const value = row(i) + w * (row(i + 1) - row(i));
-  return Math.max(value, 0.5 * row(0));
+  // Called for every stock thickness of every run: no closures or index records here.
+  const ti = ts.length === 1 ? 0 : segmentIndex(ts, thicknessM);
+  const tw = ts.length === 1 ? 0 : segmentWeight(ts, ti, thicknessM);
+  if (ods.length === 1) return Math.max(0, rowAt(table, 0, ti, tw));
+  const i = segmentIndex(ods, pipeOuterDiameterM);
+  const w = segmentWeight(ods, i, pipeOuterDiameterM);
+  const value = rowAt(table, i, ti, tw) + w * (rowAt(table, i + 1, ti, tw) - rowAt(table, i, ti, tw));
+  return Math.max(value, 0.5 * rowAt(table, 0, ti, tw));
 }
 
 /** Cost of one removable fitting cover by pipe OD, from the table. */
@@ -143,7 +153,8 @@ export function fittingCoverCost(table: InstalledCostTable, pipeOuterDiameterM: 
   const ods = table.pipeOuterDiametersM;
   const costs = table.fittingCoverCostEach;
   if (ods.length === 1) return costs[0] as number;
-  const { i, w } = interpolateIndex(ods, pipeOuterDiameterM);
+  const i = segmentIndex(ods, pipeOuterDiameterM);
+  const w = segmentWeight(ods, i, pipeOuterDiameterM);
   const value = (costs[i] as number) + w * ((costs[i + 1] as number) - (costs[i] as number));
   return Math.max(value, 0.5 * (costs[0] as number));
 }

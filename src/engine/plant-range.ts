@@ -3,7 +3,7 @@ import { HOURS_PER_YEAR } from './physical-constants';
 import type { ParsedPlantInput } from './plant-input';
 import type { PlantResult, Range } from './plant-result';
 import type { SampleTerms } from './run-estimate';
-import { CONFIDENCE_SPREADS, mulberry32, quantileSorted, triangularFactor, type Confidence } from './uncertainty';
+import { CONFIDENCE_SPREADS, Mulberry32, quantileSorted, triangularFactor, type Confidence } from './uncertainty';
 
 /** The inputs the range samples, in words for the result. */
 export const SAMPLED_INPUTS = [
@@ -33,7 +33,7 @@ export function sampleRanges(
   boilerConfidence: Confidence,
 ): PlantResult['range'] {
   const n = plant.range.samples;
-  const random = mulberry32(plant.range.seed);
+  const generator = new Mulberry32(plant.range.seed);
   const hoursSpread = CONFIDENCE_SPREADS[plant.operatingHoursConfidence];
   const priceSpread = CONFIDENCE_SPREADS[plant.energy.priceConfidence];
   const efficiencySpread = CONFIDENCE_SPREADS[boilerConfidence];
@@ -45,50 +45,48 @@ export function sampleRanges(
   const co2SavingS = new Float64Array(n);
   const installedS = new Float64Array(n);
   const paybackS = new Float64Array(n);
-  // Column by column in typed arrays: the inner loop runs samples × runs times.
+  // Column by column in typed arrays held in locals: the inner loop runs samples × runs times.
   const runCount = terms.length;
   const column = (pick: (t: SampleTerms) => number) => Float64Array.from(terms, pick);
-  const col = {
-    lengthM: column((t) => t.lengthM),
-    lengthSpread: column((t) => t.lengthSpread),
-    hours: column((t) => t.hours),
-    cold: Uint8Array.from(terms, (t) => (t.cold ? 1 : 0)),
-    costPerJHeat: column((t) => t.costPerJHeat),
-    co2PerJHeat: column((t) => t.co2PerJHeat),
-    currentBareWPerM: column((t) => t.currentBareWPerM),
-    currentInsulatedWPerM: column((t) => t.currentInsulatedWPerM),
-    bareFraction: column((t) => t.bareFraction),
-    bareFractionSpread: column((t) => t.bareFractionSpread),
-    currentFittingsBareW: column((t) => t.currentFittingsBareW),
-    currentFittingsInsulatedW: column((t) => t.currentFittingsInsulatedW),
-    proposedBareWPerM: column((t) => t.proposedBareWPerM),
-    proposedInsulatedWPerM: column((t) => t.proposedInsulatedWPerM),
-    proposedBareFraction: column((t) => t.proposedBareFraction),
-    proposedFittingsBareW: column((t) => t.proposedFittingsBareW),
-    proposedFittingsInsulatedW: column((t) => t.proposedFittingsInsulatedW),
-    bareSensitivityPerK: column((t) => t.bareSensitivityPerK),
-    bareSensitivityPerMPerS: column((t) => t.bareSensitivityPerMPerS),
-    bareSensitivityPerEmittance: column((t) => t.bareSensitivityPerEmittance),
-    insulatedSensitivityPerK: column((t) => t.insulatedSensitivityPerK),
-    airSpreadK: column((t) => t.airSpreadK),
-    speedSpreadMPerS: column((t) => t.speedSpreadMPerS),
-    emittanceSpread: column((t) => t.emittanceSpread),
-    conditionSpread: column((t) => t.conditionSpread),
-    installedPerMetre: column((t) => t.installedPerMetre),
-    installedFixed: column((t) => t.installedFixed),
-    priceSpread: column((t) => t.priceSpread),
-  };
+  const lengthMCol = column((t) => t.lengthM);
+  const lengthSpreadCol = column((t) => t.lengthSpread);
+  const hoursCol = column((t) => t.hours);
+  const coldCol = Uint8Array.from(terms, (t) => (t.cold ? 1 : 0));
+  const costPerJHeatCol = column((t) => t.costPerJHeat);
+  const co2PerJHeatCol = column((t) => t.co2PerJHeat);
+  const currentBareWPerMCol = column((t) => t.currentBareWPerM);
+  const currentInsulatedWPerMCol = column((t) => t.currentInsulatedWPerM);
+  const bareFractionCol = column((t) => t.bareFraction);
+  const bareFractionSpreadCol = column((t) => t.bareFractionSpread);
+  const currentFittingsBareWCol = column((t) => t.currentFittingsBareW);
+  const currentFittingsInsulatedWCol = column((t) => t.currentFittingsInsulatedW);
+  const proposedBareWPerMCol = column((t) => t.proposedBareWPerM);
+  const proposedInsulatedWPerMCol = column((t) => t.proposedInsulatedWPerM);
+  const proposedBareFractionCol = column((t) => t.proposedBareFraction);
+  const proposedFittingsBareWCol = column((t) => t.proposedFittingsBareW);
+  const proposedFittingsInsulatedWCol = column((t) => t.proposedFittingsInsulatedW);
+  const bareAirCol = column((t) => t.bareSensitivityPerK);
+  const airSpreadCol = column((t) => t.airSpreadK);
+  const bareSpeedCol = column((t) => t.bareSensitivityPerMPerS);
+  const speedSpreadCol = column((t) => t.speedSpreadMPerS);
+  const bareEmittanceCol = column((t) => t.bareSensitivityPerEmittance);
+  const emittanceSpreadCol = column((t) => t.emittanceSpread);
+  const insulatedAirCol = column((t) => t.insulatedSensitivityPerK);
+  const conditionSpreadCol = column((t) => t.conditionSpread);
+  const installedPerMetreCol = column((t) => t.installedPerMetre);
+  const installedFixedCol = column((t) => t.installedFixed);
+  const priceSpreadCol = column((t) => t.priceSpread);
   for (let s = 0; s < n; s++) {
-    const hoursFactor = triangularFactor(hoursSpread, random());
-    const fuelFactor = triangularFactor(priceSpread, random());
+    const hoursFactor = triangularFactor(hoursSpread, generator.next());
+    const fuelFactor = triangularFactor(priceSpread, generator.next());
     // The efficiency cannot pass 1, so its factor is capped where it would.
-    const efficiencyFactor = Math.min(triangularFactor(efficiencySpread, random()), 1 / boilerEfficiency);
+    const efficiencyFactor = Math.min(triangularFactor(efficiencySpread, generator.next()), 1 / boilerEfficiency);
     // Shared by every run of the sample: the air, the surfaces and the prices err together.
-    const airOffset = triangularFactor(1, random()) - 1;
-    const speedOffset = triangularFactor(1, random()) - 1;
-    const emittanceOffset = triangularFactor(1, random()) - 1;
-    const conditionOffset = triangularFactor(1, random()) - 1;
-    const priceOffset = triangularFactor(1, random()) - 1;
+    const airOffset = triangularFactor(1, generator.next()) - 1;
+    const speedOffset = triangularFactor(1, generator.next()) - 1;
+    const emittanceOffset = triangularFactor(1, generator.next()) - 1;
+    const conditionOffset = triangularFactor(1, generator.next()) - 1;
+    const priceOffset = triangularFactor(1, generator.next()) - 1;
     let currentCost = 0;
     let currentHeat = 0;
     let currentCo2 = 0;
@@ -97,41 +95,39 @@ export function sampleRanges(
     let proposedCo2 = 0;
     let installed = 0;
     for (let r = 0; r < runCount; r++) {
-      const length = col.lengthM[r]! * triangularFactor(col.lengthSpread[r]!, random());
-      const bareFractionSpread = col.bareFractionSpread[r]!;
+      const length = lengthMCol[r]! * triangularFactor(lengthSpreadCol[r]!, generator.next());
+      const bareFractionSpread = bareFractionSpreadCol[r]!;
       const fraction =
-        bareFractionSpread > 0 ? Math.min(1, Math.max(0, col.bareFraction[r]! * triangularFactor(bareFractionSpread, random()))) : col.bareFraction[r]!;
+        bareFractionSpread > 0 ? Math.min(1, Math.max(0, bareFractionCol[r]! * triangularFactor(bareFractionSpread, generator.next()))) : bareFractionCol[r]!;
+      const airSpread = airSpreadCol[r]!;
       const bareFactor = Math.max(
         0,
-        1 +
-          col.bareSensitivityPerK[r]! * airOffset * col.airSpreadK[r]! +
-          col.bareSensitivityPerMPerS[r]! * speedOffset * col.speedSpreadMPerS[r]! +
-          col.bareSensitivityPerEmittance[r]! * emittanceOffset * col.emittanceSpread[r]!,
+        1 + bareAirCol[r]! * airOffset * airSpread + bareSpeedCol[r]! * speedOffset * speedSpreadCol[r]! + bareEmittanceCol[r]! * emittanceOffset * emittanceSpreadCol[r]!,
       );
-      const insulatedFactor = Math.max(0, 1 + col.insulatedSensitivityPerK[r]! * airOffset * col.airSpreadK[r]!);
-      const conditionFactor = 1 + conditionOffset * col.conditionSpread[r]!;
-      const seconds = Math.min(HOURS_PER_YEAR, col.hours[r]! * hoursFactor) * SECONDS_PER_HOUR;
+      const insulatedFactor = Math.max(0, 1 + insulatedAirCol[r]! * airOffset * airSpread);
+      const conditionFactor = 1 + conditionOffset * conditionSpreadCol[r]!;
+      const seconds = Math.min(HOURS_PER_YEAR, hoursCol[r]! * hoursFactor) * SECONDS_PER_HOUR;
       const currentW =
-        length * (fraction * col.currentBareWPerM[r]! * bareFactor + (1 - fraction) * col.currentInsulatedWPerM[r]! * insulatedFactor * conditionFactor) +
-        col.currentFittingsBareW[r]! * bareFactor +
-        col.currentFittingsInsulatedW[r]! * insulatedFactor;
-      const proposedBareFraction = col.proposedBareFraction[r]!;
+        length * (fraction * currentBareWPerMCol[r]! * bareFactor + (1 - fraction) * currentInsulatedWPerMCol[r]! * insulatedFactor * conditionFactor) +
+        currentFittingsBareWCol[r]! * bareFactor +
+        currentFittingsInsulatedWCol[r]! * insulatedFactor;
+      const proposedBareFraction = proposedBareFractionCol[r]!;
       const proposedW =
-        length * (proposedBareFraction * col.proposedBareWPerM[r]! * bareFactor + (1 - proposedBareFraction) * col.proposedInsulatedWPerM[r]! * insulatedFactor) +
-        col.proposedFittingsBareW[r]! * bareFactor +
-        col.proposedFittingsInsulatedW[r]! * insulatedFactor;
+        length * (proposedBareFraction * proposedBareWPerMCol[r]! * bareFactor + (1 - proposedBareFraction) * proposedInsulatedWPerMCol[r]! * insulatedFactor) +
+        proposedFittingsBareWCol[r]! * bareFactor +
+        proposedFittingsInsulatedWCol[r]! * insulatedFactor;
       const currentJ = currentW * seconds;
       const proposedJ = proposedW * seconds;
-      const cold = col.cold[r] === 1;
-      const perJCost = cold ? col.costPerJHeat[r]! * fuelFactor : (col.costPerJHeat[r]! * fuelFactor) / efficiencyFactor;
-      const perJCo2 = cold ? col.co2PerJHeat[r]! : col.co2PerJHeat[r]! / efficiencyFactor;
+      const cold = coldCol[r] === 1;
+      const perJCost = cold ? costPerJHeatCol[r]! * fuelFactor : (costPerJHeatCol[r]! * fuelFactor) / efficiencyFactor;
+      const perJCo2 = cold ? co2PerJHeatCol[r]! : co2PerJHeatCol[r]! / efficiencyFactor;
       currentCost += currentJ * perJCost;
       currentHeat += currentJ;
       currentCo2 += currentJ * perJCo2;
       proposedCost += proposedJ * perJCost;
       proposedHeat += proposedJ;
       proposedCo2 += proposedJ * perJCo2;
-      installed += (col.installedPerMetre[r]! * length + col.installedFixed[r]!) * (1 + priceOffset * col.priceSpread[r]!);
+      installed += (installedPerMetreCol[r]! * length + installedFixedCol[r]!) * (1 + priceOffset * priceSpreadCol[r]!);
     }
     currentCostS[s] = currentCost;
     currentHeatS[s] = currentHeat / J_PER_GJ;

@@ -1,4 +1,4 @@
-import { annualFigures, addFigures, ZERO_FIGURES, type AnnualFigures, type Rates } from './annual-figures';
+import { annualCostOf, annualFigures, addFigures, ZERO_FIGURES, type AnnualFigures, type Rates } from './annual-figures';
 import { findInsulationMaterial, findSurface } from './catalogue';
 import { runConditions, type AirState, type RunConditions } from './conditions';
 import { c585ActualThicknessM } from './data/c585';
@@ -323,7 +323,7 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   const priceAt = (thicknessM: number) => installedCostPerMetre(ctx.table, base.pipeOuterDiameterM, thicknessM) * material.installedCostFactor;
   const coverEach = proposal.price?.coverEach ?? fittingCoverCost(ctx.table, base.pipeOuterDiameterM);
   const pwf = ctx.pwf;
-  const annualCostOfBilledW = (w: number) => annualFigures(w, hours, rates, fuel, latent).annualCost;
+  const annualCostOfBilledW = (w: number) => annualCostOf(w, hours, rates);
 
   // New insulation on bare pipe: the stock series (nominal thickness; C585 actual on the pipe for the inch series).
   const actual = (t: number) => (ctx.stockSeries === 'inch' ? c585ActualThicknessM(base.pipeOuterDiameterM, t) : t);
@@ -388,6 +388,14 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   // Options.
   const options: (Required<RunOption> & { readonly pipeWPerM: number; readonly pipeBareFraction: number; readonly fitInsulatedW: number; readonly fitBareW: number; readonly perMetrePrice: number; readonly fixedPrice: number })[] = [];
   const fitCovers = coverFittings ? uncoveredCount : 0;
+  // Billed W of an option's pipe and fittings, and its safety at design air.
+  const optionBilledW = (pipeWPerM: number, pipeBareFraction: number, fittingsWPerM: number, coversFitted: number) => {
+    const fitBareEq = coversFitted > 0 ? 0 : fitBareEqL;
+    const fitInsulatedEq = fitEqL - fitBareEq;
+    return lengthM * ((1 - pipeBareFraction) * billed(pipeWPerM) + pipeBareFraction * billed(bareAvg.wPerM)) + fitBareEq * billed(bareAvg.wPerM) + fitInsulatedEq * billed(fittingsWPerM);
+  };
+  const meetsTouchAt = (designSurfaceC: number, meetsAll: boolean) => !burnNeed || (meetsAll && designSurfaceC <= touchLimitC);
+  const meetsDewAt = (designSurfaceC: number, meetsAll: boolean) => !sweatNeed || (meetsAll && designSurfaceC >= dewLimitC);
   const optionFrom = (
     kind: OptionKind,
     spec: { material: string | null; thicknessM: number | null; jacket: string | null },
@@ -402,10 +410,10 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   ) => {
     const fitBareEq = coversFitted > 0 ? 0 : fitBareEqL;
     const fitInsulatedEq = fitEqL - fitBareEq;
-    const billedW = lengthM * ((1 - pipeBareFraction) * billed(pipeWPerM) + pipeBareFraction * billed(bareAvg.wPerM)) + fitBareEq * billed(bareAvg.wPerM) + fitInsulatedEq * billed(fittingsWPerM);
+    const billedW = optionBilledW(pipeWPerM, pipeBareFraction, fittingsWPerM, coversFitted);
     const installed = perMetrePrice * lengthInsulatedM + coversFitted * coverEach;
-    const annualCost = annualCostOfBilledW(billedW);
     const figures = annualFigures(billedW, hours, rates, fuel, latent);
+    const annualCost = figures.annualCost;
     const saving = currentFigures.annualCost - annualCost;
     options.push({
       kind,
@@ -422,8 +430,8 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
       simplePaybackYears: kind === 'leave' ? null : simplePaybackYears(installed, saving),
       lifeCycleCost: installed + pwf * annualCost,
       designSurfaceTemperatureC: designSurfaceC,
-      meetsTouchLimit: !burnNeed || (meetsAll && designSurfaceC <= touchLimitC),
-      meetsDewPoint: !sweatNeed || (meetsAll && designSurfaceC >= dewLimitC),
+      meetsTouchLimit: meetsTouchAt(designSurfaceC, meetsAll),
+      meetsDewPoint: meetsDewAt(designSurfaceC, meetsAll),
       pipeWPerM,
       pipeBareFraction,
       fitInsulatedW: fitInsulatedEq * billed(fittingsWPerM),
@@ -445,19 +453,6 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
     const repairPrice = installedCostPerMetre(ctx.table, base.pipeOuterDiameterM, existing.thicknessM) * existing.material.installedCostFactor;
     optionFrom('repair', { material: existing.material.id, thicknessM: existing.thicknessM, jacket: existing.jacket }, currentIns.wPerM, 0, currentIns.wPerM, fitCovers, bareFraction * lengthM, repairPrice, designC, meets(designC));
   }
-  // Insulate a bare run, or replace what is there.
-  const pickBest = (series: SeriesEntry[], kind: OptionKind, build: (entry: SeriesEntry) => void) => {
-    const before = options.length;
-    for (const entry of series) build(entry);
-    const added = options.splice(before);
-    if (added.length === 0) return;
-    const safe = added.filter((o) => o.meetsTouchLimit && o.meetsDewPoint);
-    const pool = safe.length > 0 ? safe : [added[added.length - 1] as (typeof added)[number]];
-    let best = pool[0] as (typeof added)[number];
-    for (const o of pool) if (o.lifeCycleCost < best.lifeCycleCost) best = o;
-    void kind;
-    options.push(best);
-  };
   const designOf = (entry: SeriesEntry, index: number, series: SeriesEntry[]) => {
     if (entry.design) return entry.design.surfaceC;
     // Past the first thickness that meets the need the design surface only gets safer; report the first met.
@@ -465,20 +460,38 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
     return entry.avg.surfaceC;
   };
   const coversDesign = (c: number) => (uncoveredCount > 0 && !coverFittings ? worse(c, bareDesign.surfaceC) : c);
-  pickBest(newSeries, state === 'bare' ? 'insulate' : 'replace', (entry) => {
-    const i = newSeries.indexOf(entry);
-    const designC = coversDesign(designOf(entry, i, newSeries));
-    optionFrom(state === 'bare' ? 'insulate' : 'replace', { material: material.id, thicknessM: entry.t, jacket }, entry.avg.wPerM, 0, entry.avg.wPerM, fitCovers, lengthM, priceAt(entry.t), designC, entry.meets && meets(designC));
-  });
+  /**
+   * The one option of a series: the least life-cycle cost of the thicknesses that meet the
+   * safety checks, else the thickest. Each thickness is costed in place; only the one kept
+   * becomes an option.
+   */
+  const pickBest = (series: SeriesEntry[], kind: OptionKind, perMetreAt: (thicknessM: number) => number) => {
+    let best = -1;
+    let bestCost = 0;
+    for (let i = 0; i < series.length; i++) {
+      const entry = series[i] as SeriesEntry;
+      const designC = coversDesign(designOf(entry, i, series));
+      const meetsAll = entry.meets && meets(designC);
+      if (!(meetsTouchAt(designC, meetsAll) && meetsDewAt(designC, meetsAll))) continue;
+      const installed = perMetreAt(entry.t) * lengthM + fitCovers * coverEach;
+      const lifeCycleCost = installed + pwf * annualCostOfBilledW(optionBilledW(entry.avg.wPerM, 0, entry.avg.wPerM, fitCovers));
+      if (best < 0 || lifeCycleCost < bestCost) {
+        best = i;
+        bestCost = lifeCycleCost;
+      }
+    }
+    if (best < 0) best = series.length - 1;
+    if (best < 0) return;
+    const entry = series[best] as SeriesEntry;
+    const designC = coversDesign(designOf(entry, best, series));
+    optionFrom(kind, { material: material.id, thicknessM: entry.t, jacket }, entry.avg.wPerM, 0, entry.avg.wPerM, fitCovers, lengthM, perMetreAt(entry.t), designC, entry.meets && meets(designC));
+  };
+  // Insulate a bare run, or replace what is there.
+  pickBest(newSeries, state === 'bare' ? 'insulate' : 'replace', priceAt);
   if (existing) {
     const repairPrice = installedCostPerMetre(ctx.table, base.pipeOuterDiameterM, existing.thicknessM) * existing.material.installedCostFactor;
-    pickBest(addSeries, 'add-layer', (entry) => {
-      const i = addSeries.indexOf(entry);
-      const designC = coversDesign(designOf(entry, i, addSeries));
-      // A damaged run's bare stretch is repaired first, then the layer goes over the whole run.
-      const perMetre = priceAt(entry.t) + (bareFraction > 0 ? bareFraction * repairPrice : 0);
-      optionFrom('add-layer', { material: material.id, thicknessM: entry.t, jacket }, entry.avg.wPerM, 0, entry.avg.wPerM, fitCovers, lengthM, perMetre, designC, entry.meets && meets(designC));
-    });
+    // A damaged run's bare stretch is repaired first, then the layer goes over the whole run.
+    pickBest(addSeries, 'add-layer', (t) => priceAt(t) + (bareFraction > 0 ? bareFraction * repairPrice : 0));
   }
 
   // A typed price overrides the table: scale every option by the typed price over the table's for the proposal.

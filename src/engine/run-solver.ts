@@ -109,6 +109,8 @@ interface SolverState {
   lastHeat: number;
   lastRayleigh: number;
   lastLatent: number;
+  /** The surface temperature of the last trial, whose figures the `last…` fields hold. */
+  lastSurfaceC: number;
 }
 
 const state: SolverState = {
@@ -139,6 +141,7 @@ const state: SolverState = {
   lastHeat: 0,
   lastRayleigh: 0,
   lastLatent: 0,
+  lastSurfaceC: Number.NaN,
 };
 
 function convectionAt(surfaceC: number): number {
@@ -191,6 +194,7 @@ function impliedFluidMinusActual(surfaceC: number): number {
   const st = state;
   const q = heatAt(surfaceC);
   st.lastHeat = q;
+  st.lastSurfaceC = surfaceC;
   let t = surfaceC;
   const layers = st.run.layers;
   for (let j = st.nLayers - 1; j >= 0; j--) {
@@ -335,7 +339,8 @@ function findSurface(run: ResolvedRun, guessSurfaceC: number | undefined): { sur
     }
     surfaceC = result.root;
     iterations = result.iterations;
-    impliedFluidMinusActual(surfaceC);
+    // The state must hold the root's figures; most often the root was the last trial and already does.
+    if (st.lastSurfaceC !== surfaceC) impliedFluidMinusActual(surfaceC);
   }
   return { surfaceC, iterations };
 }

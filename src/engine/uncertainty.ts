@@ -13,17 +13,28 @@ export const CONFIDENCE_SPREADS: Readonly<Record<Confidence, number>> = {
 
 /**
  * Seeded pseudo-random numbers in [0, 1): mulberry32 (Tommy Ettinger, public
- * domain), small and fast, so a range is reproducible from its seed.
+ * domain), small and fast, so a range is reproducible from its seed. A class rather than a
+ * closure: each estimate makes a new generator, and one method shared by all of them stays
+ * inlined in the sampling loop where a fresh closure would not.
  */
-export function mulberry32(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
+export class Mulberry32 {
+  // A uint32 in an ordinary field or closure variable is boxed on every draw once it passes
+  // the small-integer range; a typed array holds it unboxed.
+  private readonly state = new Uint32Array(1);
+
+  constructor(seed: number) {
+    this.state[0] = seed;
+  }
+
+  /** The next number in [0, 1). */
+  next(): number {
+    const state = this.state;
+    state[0] = (state[0] as number) + 0x6d2b79f5;
+    let t = state[0] as number;
     t = Math.imul(t ^ (t >>> 15), t | 1);
     t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
     return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  }
 }
 
 /** A symmetric triangular multiplier on [1 − s, 1 + s] with mode 1, from a uniform u. */
