@@ -30,6 +30,11 @@ export function brentRoot(
   if (fa === 0) return { root: a, iterations: 0, converged: true };
   if (fb === 0) return { root: b, iterations: 0, converged: true };
   if ((fa > 0 && fb > 0) || (fa < 0 && fb < 0) || !Number.isFinite(fa) || !Number.isFinite(fb)) {
+    // An end already within the value tolerance is a root even where rounding left both ends
+    // on one side of zero (a line at the air's own temperature, say).
+    if (Number.isFinite(fa) && Number.isFinite(fb) && Math.min(Math.abs(fa), Math.abs(fb)) <= valueTolerance) {
+      return { root: Math.abs(fa) <= Math.abs(fb) ? a : b, iterations: 0, converged: true };
+    }
     return { root: Number.NaN, iterations: 0, converged: false };
   }
   let c = a;
