@@ -3,7 +3,7 @@ import { HOURS_PER_YEAR } from './physical-constants';
 import type { ParsedPlantInput } from './plant-input';
 import type { PlantResult, Range } from './plant-result';
 import type { SampleTerms } from './run-estimate';
-import { CONFIDENCE_SPREADS, Mulberry32, quantileSorted, triangularFactor, type Confidence } from './uncertainty';
+import { CONFIDENCE_SPREADS, nextDraw, quantileSorted, seedDraws, triangularFactor, type Confidence } from './uncertainty';
 
 /** The inputs the range samples, in words for the result. */
 export const SAMPLED_INPUTS = [
@@ -33,60 +33,157 @@ export function sampleRanges(
   boilerConfidence: Confidence,
 ): PlantResult['range'] {
   const n = plant.range.samples;
-  const generator = new Mulberry32(plant.range.seed);
-  const hoursSpread = CONFIDENCE_SPREADS[plant.operatingHoursConfidence];
-  const priceSpread = CONFIDENCE_SPREADS[plant.energy.priceConfidence];
-  const efficiencySpread = CONFIDENCE_SPREADS[boilerConfidence];
-  const currentCostS = new Float64Array(n);
-  const currentHeatS = new Float64Array(n);
-  const currentCo2S = new Float64Array(n);
-  const savingS = new Float64Array(n);
-  const heatSavingS = new Float64Array(n);
-  const co2SavingS = new Float64Array(n);
-  const installedS = new Float64Array(n);
-  const paybackS = new Float64Array(n);
+  const out: SampleColumns = {
+    currentCost: new Float64Array(n),
+    currentHeatGJ: new Float64Array(n),
+    currentCo2: new Float64Array(n),
+    saving: new Float64Array(n),
+    heatSavingGJ: new Float64Array(n),
+    co2Saving: new Float64Array(n),
+    installed: new Float64Array(n),
+    payback: new Float64Array(n),
+  };
+  drawSamples(
+    out,
+    terms,
+    plant.range.seed,
+    CONFIDENCE_SPREADS[plant.operatingHoursConfidence],
+    CONFIDENCE_SPREADS[plant.energy.priceConfidence],
+    CONFIDENCE_SPREADS[boilerConfidence],
+    boilerEfficiency,
+  );
+  const range = (values: Float64Array, point: number): Range => {
+    values.sort();
+    return { low: quantileSorted(values, 0.1), likely: point, high: quantileSorted(values, 0.9) };
+  };
+  const payback = range(out.payback, likely.simplePaybackYears ?? Number.POSITIVE_INFINITY);
+  return {
+    samples: n,
+    seed: plant.range.seed,
+    currentAnnualCost: range(out.currentCost, likely.current.annualCost),
+    currentAnnualHeatGJ: range(out.currentHeatGJ, likely.current.annualHeatGJ),
+    currentAnnualCo2Kg: range(out.currentCo2, likely.current.annualCo2Kg),
+    annualCostSaving: range(out.saving, likely.savings.annualCost),
+    annualHeatSavingGJ: range(out.heatSavingGJ, likely.savings.annualHeatGJ),
+    annualCo2SavingKg: range(out.co2Saving, likely.savings.annualCo2Kg),
+    installedCost: range(out.installed, likely.installedCost),
+    simplePaybackYears:
+      Number.isFinite(payback.low) && Number.isFinite(payback.high) && Number.isFinite(payback.likely) ? payback : null,
+    sampled: SAMPLED_INPUTS,
+  };
+}
+
+/** One figure per sample, filled by {@link drawSamples}. */
+interface SampleColumns {
+  readonly currentCost: Float64Array;
+  readonly currentHeatGJ: Float64Array;
+  readonly currentCo2: Float64Array;
+  readonly saving: Float64Array;
+  readonly heatSavingGJ: Float64Array;
+  readonly co2Saving: Float64Array;
+  readonly installed: Float64Array;
+  readonly payback: Float64Array;
+}
+
+/**
+ * The samples themselves, written into `out`. A function of its own that ends with its loop
+ * (code after a hot loop that has never run would throw the loop's optimised code away on
+ * every estimate) and reads no parsed input (the shapes of objects the parser made die with
+ * them, and a full collection would throw away code that knew them).
+ */
+function drawSamples(
+  out: SampleColumns,
+  terms: readonly SampleTerms[],
+  seed: number,
+  hoursSpread: number,
+  priceSpread: number,
+  efficiencySpread: number,
+  boilerEfficiency: number,
+): void {
+  const n = out.currentCost.length;
+  seedDraws(seed);
+  const currentCostS = out.currentCost;
+  const currentHeatS = out.currentHeatGJ;
+  const currentCo2S = out.currentCo2;
+  const savingS = out.saving;
+  const heatSavingS = out.heatSavingGJ;
+  const co2SavingS = out.co2Saving;
+  const installedS = out.installed;
+  const paybackS = out.payback;
   // Column by column in typed arrays held in locals: the inner loop runs samples × runs times.
   const runCount = terms.length;
-  const column = (pick: (t: SampleTerms) => number) => Float64Array.from(terms, pick);
-  const lengthMCol = column((t) => t.lengthM);
-  const lengthSpreadCol = column((t) => t.lengthSpread);
-  const hoursCol = column((t) => t.hours);
-  const coldCol = Uint8Array.from(terms, (t) => (t.cold ? 1 : 0));
-  const costPerJHeatCol = column((t) => t.costPerJHeat);
-  const co2PerJHeatCol = column((t) => t.co2PerJHeat);
-  const currentBareWPerMCol = column((t) => t.currentBareWPerM);
-  const currentInsulatedWPerMCol = column((t) => t.currentInsulatedWPerM);
-  const bareFractionCol = column((t) => t.bareFraction);
-  const bareFractionSpreadCol = column((t) => t.bareFractionSpread);
-  const currentFittingsBareWCol = column((t) => t.currentFittingsBareW);
-  const currentFittingsInsulatedWCol = column((t) => t.currentFittingsInsulatedW);
-  const proposedBareWPerMCol = column((t) => t.proposedBareWPerM);
-  const proposedInsulatedWPerMCol = column((t) => t.proposedInsulatedWPerM);
-  const proposedBareFractionCol = column((t) => t.proposedBareFraction);
-  const proposedFittingsBareWCol = column((t) => t.proposedFittingsBareW);
-  const proposedFittingsInsulatedWCol = column((t) => t.proposedFittingsInsulatedW);
-  const bareAirCol = column((t) => t.bareSensitivityPerK);
-  const airSpreadCol = column((t) => t.airSpreadK);
-  const bareSpeedCol = column((t) => t.bareSensitivityPerMPerS);
-  const speedSpreadCol = column((t) => t.speedSpreadMPerS);
-  const bareEmittanceCol = column((t) => t.bareSensitivityPerEmittance);
-  const emittanceSpreadCol = column((t) => t.emittanceSpread);
-  const insulatedAirCol = column((t) => t.insulatedSensitivityPerK);
-  const conditionSpreadCol = column((t) => t.conditionSpread);
-  const installedPerMetreCol = column((t) => t.installedPerMetre);
-  const installedFixedCol = column((t) => t.installedFixed);
-  const priceSpreadCol = column((t) => t.priceSpread);
+  // Plain loops, no per-call closures: optimised code that held a closure made here would be
+  // thrown away by the next full collection, and the loop below run unoptimised again.
+  const lengthMCol = new Float64Array(runCount);
+  const lengthSpreadCol = new Float64Array(runCount);
+  const hoursCol = new Float64Array(runCount);
+  const costPerJHeatCol = new Float64Array(runCount);
+  const co2PerJHeatCol = new Float64Array(runCount);
+  const currentBareWPerMCol = new Float64Array(runCount);
+  const currentInsulatedWPerMCol = new Float64Array(runCount);
+  const bareFractionCol = new Float64Array(runCount);
+  const bareFractionSpreadCol = new Float64Array(runCount);
+  const currentFittingsBareWCol = new Float64Array(runCount);
+  const currentFittingsInsulatedWCol = new Float64Array(runCount);
+  const proposedBareWPerMCol = new Float64Array(runCount);
+  const proposedInsulatedWPerMCol = new Float64Array(runCount);
+  const proposedBareFractionCol = new Float64Array(runCount);
+  const proposedFittingsBareWCol = new Float64Array(runCount);
+  const proposedFittingsInsulatedWCol = new Float64Array(runCount);
+  const bareAirCol = new Float64Array(runCount);
+  const airSpreadCol = new Float64Array(runCount);
+  const bareSpeedCol = new Float64Array(runCount);
+  const speedSpreadCol = new Float64Array(runCount);
+  const bareEmittanceCol = new Float64Array(runCount);
+  const emittanceSpreadCol = new Float64Array(runCount);
+  const insulatedAirCol = new Float64Array(runCount);
+  const conditionSpreadCol = new Float64Array(runCount);
+  const installedPerMetreCol = new Float64Array(runCount);
+  const installedFixedCol = new Float64Array(runCount);
+  const priceSpreadCol = new Float64Array(runCount);
+  const coldCol = new Uint8Array(runCount);
+  for (let r = 0; r < runCount; r++) {
+    const t = terms[r] as SampleTerms;
+    lengthMCol[r] = t.lengthM;
+    lengthSpreadCol[r] = t.lengthSpread;
+    hoursCol[r] = t.hours;
+    costPerJHeatCol[r] = t.costPerJHeat;
+    co2PerJHeatCol[r] = t.co2PerJHeat;
+    currentBareWPerMCol[r] = t.currentBareWPerM;
+    currentInsulatedWPerMCol[r] = t.currentInsulatedWPerM;
+    bareFractionCol[r] = t.bareFraction;
+    bareFractionSpreadCol[r] = t.bareFractionSpread;
+    currentFittingsBareWCol[r] = t.currentFittingsBareW;
+    currentFittingsInsulatedWCol[r] = t.currentFittingsInsulatedW;
+    proposedBareWPerMCol[r] = t.proposedBareWPerM;
+    proposedInsulatedWPerMCol[r] = t.proposedInsulatedWPerM;
+    proposedBareFractionCol[r] = t.proposedBareFraction;
+    proposedFittingsBareWCol[r] = t.proposedFittingsBareW;
+    proposedFittingsInsulatedWCol[r] = t.proposedFittingsInsulatedW;
+    bareAirCol[r] = t.bareSensitivityPerK;
+    airSpreadCol[r] = t.airSpreadK;
+    bareSpeedCol[r] = t.bareSensitivityPerMPerS;
+    speedSpreadCol[r] = t.speedSpreadMPerS;
+    bareEmittanceCol[r] = t.bareSensitivityPerEmittance;
+    emittanceSpreadCol[r] = t.emittanceSpread;
+    insulatedAirCol[r] = t.insulatedSensitivityPerK;
+    conditionSpreadCol[r] = t.conditionSpread;
+    installedPerMetreCol[r] = t.installedPerMetre;
+    installedFixedCol[r] = t.installedFixed;
+    priceSpreadCol[r] = t.priceSpread;
+    coldCol[r] = t.cold ? 1 : 0;
+  }
   for (let s = 0; s < n; s++) {
-    const hoursFactor = triangularFactor(hoursSpread, generator.next());
-    const fuelFactor = triangularFactor(priceSpread, generator.next());
+    const hoursFactor = triangularFactor(hoursSpread, nextDraw());
+    const fuelFactor = triangularFactor(priceSpread, nextDraw());
     // The efficiency cannot pass 1, so its factor is capped where it would.
-    const efficiencyFactor = Math.min(triangularFactor(efficiencySpread, generator.next()), 1 / boilerEfficiency);
+    const efficiencyFactor = Math.min(triangularFactor(efficiencySpread, nextDraw()), 1 / boilerEfficiency);
     // Shared by every run of the sample: the air, the surfaces and the prices err together.
-    const airOffset = triangularFactor(1, generator.next()) - 1;
-    const speedOffset = triangularFactor(1, generator.next()) - 1;
-    const emittanceOffset = triangularFactor(1, generator.next()) - 1;
-    const conditionOffset = triangularFactor(1, generator.next()) - 1;
-    const priceOffset = triangularFactor(1, generator.next()) - 1;
+    const airOffset = triangularFactor(1, nextDraw()) - 1;
+    const speedOffset = triangularFactor(1, nextDraw()) - 1;
+    const emittanceOffset = triangularFactor(1, nextDraw()) - 1;
+    const conditionOffset = triangularFactor(1, nextDraw()) - 1;
+    const priceOffset = triangularFactor(1, nextDraw()) - 1;
     let currentCost = 0;
     let currentHeat = 0;
     let currentCo2 = 0;
@@ -95,10 +192,10 @@ export function sampleRanges(
     let proposedCo2 = 0;
     let installed = 0;
     for (let r = 0; r < runCount; r++) {
-      const length = lengthMCol[r]! * triangularFactor(lengthSpreadCol[r]!, generator.next());
+      const length = lengthMCol[r]! * triangularFactor(lengthSpreadCol[r]!, nextDraw());
       const bareFractionSpread = bareFractionSpreadCol[r]!;
       const fraction =
-        bareFractionSpread > 0 ? Math.min(1, Math.max(0, bareFractionCol[r]! * triangularFactor(bareFractionSpread, generator.next()))) : bareFractionCol[r]!;
+        bareFractionSpread > 0 ? Math.min(1, Math.max(0, bareFractionCol[r]! * triangularFactor(bareFractionSpread, nextDraw()))) : bareFractionCol[r]!;
       const airSpread = airSpreadCol[r]!;
       const bareFactor = Math.max(
         0,
@@ -138,23 +235,4 @@ export function sampleRanges(
     installedS[s] = installed;
     paybackS[s] = currentCost - proposedCost > 0 ? installed / (currentCost - proposedCost) : Number.POSITIVE_INFINITY;
   }
-  const range = (values: Float64Array, point: number): Range => {
-    values.sort();
-    return { low: quantileSorted(values, 0.1), likely: point, high: quantileSorted(values, 0.9) };
-  };
-  const payback = range(paybackS, likely.simplePaybackYears ?? Number.POSITIVE_INFINITY);
-  return {
-    samples: n,
-    seed: plant.range.seed,
-    currentAnnualCost: range(currentCostS, likely.current.annualCost),
-    currentAnnualHeatGJ: range(currentHeatS, likely.current.annualHeatGJ),
-    currentAnnualCo2Kg: range(currentCo2S, likely.current.annualCo2Kg),
-    annualCostSaving: range(savingS, likely.savings.annualCost),
-    annualHeatSavingGJ: range(heatSavingS, likely.savings.annualHeatGJ),
-    annualCo2SavingKg: range(co2SavingS, likely.savings.annualCo2Kg),
-    installedCost: range(installedS, likely.installedCost),
-    simplePaybackYears:
-      Number.isFinite(payback.low) && Number.isFinite(payback.high) && Number.isFinite(payback.likely) ? payback : null,
-    sampled: SAMPLED_INPUTS,
-  };
 }

@@ -12,29 +12,27 @@ export const CONFIDENCE_SPREADS: Readonly<Record<Confidence, number>> = {
 };
 
 /**
- * Seeded pseudo-random numbers in [0, 1): mulberry32 (Tommy Ettinger, public
- * domain), small and fast, so a range is reproducible from its seed. A class rather than a
- * closure: each estimate makes a new generator, and one method shared by all of them stays
- * inlined in the sampling loop where a fresh closure would not.
+ * Seeded pseudo-random numbers in [0, 1): mulberry32 (Tommy Ettinger, public domain), small
+ * and fast, so a range is reproducible from its seed. One stream for the engine, reseeded by
+ * each range ({@link seedDraws}; the engine is synchronous, so one range draws at a time). It
+ * lives in a module-level typed array rather than a closure or an object of its own: a uint32
+ * in a closure variable is boxed on every draw, and the sampling loop's optimised code would be
+ * thrown away whenever a collection cleared the shape of a short-lived generator object.
  */
-export class Mulberry32 {
-  // A uint32 in an ordinary field or closure variable is boxed on every draw once it passes
-  // the small-integer range; a typed array holds it unboxed.
-  private readonly state = new Uint32Array(1);
+const drawState = new Uint32Array(1);
 
-  constructor(seed: number) {
-    this.state[0] = seed;
-  }
+/** Starts the stream of {@link nextDraw} at a seed. */
+export function seedDraws(seed: number): void {
+  drawState[0] = seed;
+}
 
-  /** The next number in [0, 1). */
-  next(): number {
-    const state = this.state;
-    state[0] = (state[0] as number) + 0x6d2b79f5;
-    let t = state[0] as number;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  }
+/** The next number of the stream, in [0, 1). */
+export function nextDraw(): number {
+  drawState[0] = (drawState[0] as number) + 0x6d2b79f5;
+  let t = drawState[0] as number;
+  t = Math.imul(t ^ (t >>> 15), t | 1);
+  t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+  return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
 }
 
 /** A symmetric triangular multiplier on [1 − s, 1 + s] with mode 1, from a uniform u. */
