@@ -47,6 +47,8 @@ export function findPipeSize(standard: PipeStandard, size: string): PipeSizeEntr
 
 /** Normalises "Sch 40", "sch40s", "2.90" to the catalogue's schedule keys. */
 function normaliseSchedule(entry: PipeSizeEntry, schedule: string): string | undefined {
+  // The catalogue's own spelling (what the form sends) needs no clean-up: every key is already in the form below.
+  if (Object.hasOwn(entry.wallsM, schedule)) return schedule;
   const t = schedule
     .trim()
     .toUpperCase()

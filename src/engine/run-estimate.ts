@@ -24,7 +24,7 @@ import type {
 import { vapourPressureKPa } from './psychrometrics';
 import type { ParsedRunInput } from './run-input';
 import { prepareRun, type PreparedRun, type RunWarning } from './run';
-import { solveLean, solveResolvedRun, type ResolvedLayer, type ResolvedRun } from './run-solver';
+import { solveLean, solveResolvedRun, type CoreSolution, type ResolvedLayer, type ResolvedRun } from './run-solver';
 import { formatNumber } from './schema-helpers';
 import { saturationTemperatureC } from './steam-properties';
 import { serviceDefaults } from './services';
@@ -237,7 +237,10 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
 
   // Bare pipe.
   // Lean solves for the figures; the full solve (profiles, resistances) only where a full answer shows it.
-  const bareLean = solveLean(base);
+  // A full answer shows the bare pipe's face profile: solve it in full once, from the start a
+  // lean solve takes (the same root, to the last digit), rather than lean now and in full later.
+  const bareFull = ctx.detail === 'full' ? solveResolvedRun(base) : null;
+  const bareLean = bareFull ?? solveLean(base);
   const bareAvg: SolvedState = { wPerM: bareLean.heatLossWPerM, surfaceC: bareLean.surfaceTemperatureC };
   const bareLatentWPerM = bareLean.latentGainWPerM;
   const bareDesign = designAir ? lean(withAir(base, designAir, [], bareEmittance)) : bareAvg;
@@ -268,6 +271,7 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   let currentIns: SolvedState | null = null;
   let currentInsDesign: SolvedState | null = null;
   let currentInsRun: ResolvedRun | null = null;
+  let currentInsFull: CoreSolution | null = null;
   const conditionFactor = reading?.conditionFactor ?? 1;
   if (run.current.state !== 'bare') {
     const material = materialOrFail(run.current.material);
@@ -275,7 +279,8 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
     const emittance = emittanceOf(run.current.jacket);
     existing = { material, thicknessM: run.current.thicknessM, jacket: run.current.jacket, emittance, layers };
     currentInsRun = { ...base, layers, surfaceEmittance: emittance };
-    const solved = lean(currentInsRun);
+    currentInsFull = ctx.detail === 'full' ? solveResolvedRun(currentInsRun) : null;
+    const solved = currentInsFull ? { wPerM: currentInsFull.heatLossWPerM, surfaceC: currentInsFull.surfaceTemperatureC } : lean(currentInsRun);
     currentIns = { wPerM: solved.wPerM * conditionFactor, surfaceC: solved.surfaceC };
     currentInsDesign = designAir ? lean(withAir(base, designAir, layers, emittance)) : currentIns;
   }
@@ -564,7 +569,8 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   let proposedProfile: FaceProfile | undefined;
   let proposedSurfaceC = currentAvgSurfaceC;
   if (chosen.kind === 'leave') {
-    proposedProfile = ctx.detail === 'full' ? faceProfile(solveResolvedRun(currentHasBare || !currentInsRun ? base : currentInsRun)) : undefined;
+    const today = currentHasBare || !currentInsFull ? bareFull : currentInsFull;
+    proposedProfile = today ? faceProfile(today) : undefined;
   } else {
     const layers: ResolvedLayer[] =
       chosen.kind === 'repair' && existing
@@ -733,7 +739,7 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
       designSurfaceTemperatureC: currentDesignSurfaceC,
       latentGainW: currentLatentW,
       wrongWayHeatW: currentWrongW,
-      ...(ctx.detail === 'full' ? { profile: faceProfile(solveResolvedRun(bareFraction > 0 || !currentInsRun ? base : currentInsRun)) } : {}),
+      ...(bareFull ? { profile: faceProfile(bareFraction > 0 || !currentInsFull ? bareFull : currentInsFull) } : {}),
     },
     proposed: {
       heatW: proposedFigures.heatW,
