@@ -253,6 +253,79 @@ export const leadRevisions = pgTable(
   ],
 );
 
+/**
+ * A consultant's own installed prices: the engine's price table shape (per metre by pipe OD and
+ * insulation thickness, a fitting cover by pipe OD) in one currency. The report composer hands it
+ * to the engine in place of the illustrative demo table for plants priced in that currency.
+ */
+export const consultantPriceTables = pgTable('consultant_price_tables', {
+  userId: uuid('user_id')
+    .primaryKey()
+    .references(() => user.id, { onDelete: 'cascade' }),
+  /** ISO 4217 code the prices are in. */
+  currency: char('currency', { length: 3 }).notNull(),
+  /** { label, pipeOuterDiametersM, thicknessesM, costPerMetre, fittingCoverCostEach } (src/schemas/reports.ts). */
+  priceTable: jsonb('price_table').notNull(),
+  ...timestamps,
+});
+
+export const reportStatuses = ['draft', 'sent'] as const;
+export type ReportStatus = (typeof reportStatuses)[number];
+export const reportStatus = pgEnum('report_status', reportStatuses);
+
+/**
+ * A consultant's follow-up report on a lead. A draft (one per lead at a time) holds what the
+ * consultant composes; sending freezes it as version 1, 2, … with the engine input and full
+ * result it was sent with, the consultant as named in it, and — once the worker has rendered it —
+ * the PDF's key in object storage. A sent version never changes except for the owner's answer;
+ * a correction is a new version, and the older one reads as replaced.
+ */
+export const reports = pgTable(
+  'reports',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    assessmentId: uuid('assessment_id')
+      .notNull()
+      .references(() => assessments.id, { onDelete: 'cascade' }),
+    authorUserId: uuid('author_user_id').references(() => user.id, { onDelete: 'set null' }),
+    status: reportStatus('status').notNull().default('draft'),
+    /** 1, 2, … once sent; null while a draft. */
+    version: integer('version'),
+    /** The inventory it starts from: 0 the owner's answers, n the n-th site-walk revision. */
+    baseRevisionNumber: integer('base_revision_number').notNull(),
+    /** What the consultant composed (ReportComposition in src/schemas/reports.ts). */
+    composition: jsonb('composition').notNull(),
+    /** Frozen at sending: the PlantInput handed to the engine (proposals and prices included). */
+    plantInput: jsonb('plant_input'),
+    /** Frozen at sending: the engine's full PlantResult for it. */
+    resultSnapshot: jsonb('result_snapshot'),
+    engineVersion: text('engine_version'),
+    /** Frozen at sending: the consultant as the report names them ({ name, firm, email, phone }). */
+    consultant: jsonb('consultant'),
+    sentAt: timestamp('sent_at', { withTimezone: true }),
+    /** Set by the worker once the PDF is in object storage. */
+    pdfObjectKey: text('pdf_object_key'),
+    pdfByteSize: integer('pdf_byte_size'),
+    pdfRenderedAt: timestamp('pdf_rendered_at', { withTimezone: true }),
+    /** The owner's answer to this version: `accepted` (asks to go ahead) or `declined`. */
+    answer: text('answer'),
+    answerReason: text('answer_reason'),
+    answeredAt: timestamp('answered_at', { withTimezone: true }),
+    ...timestamps,
+  },
+  (t) => [
+    index('reports_assessment_idx').on(t.assessmentId, t.createdAt),
+    uniqueIndex('reports_assessment_version_key').on(t.assessmentId, t.version),
+    // One draft per lead: the composer always opens the same one.
+    uniqueIndex('reports_one_draft_key')
+      .on(t.assessmentId)
+      .where(sql`${t.status} = 'draft'`),
+    check('reports_version_when_sent', sql`(${t.status} = 'draft') = (${t.version} is null) and (${t.version} is null or ${t.version} >= 1)`),
+    check('reports_frozen_when_sent', sql`${t.status} = 'draft' or (${t.resultSnapshot} is not null and ${t.plantInput} is not null and ${t.sentAt} is not null)`),
+    check('reports_answer_kind', sql`${t.answer} is null or ${t.answer} in ('accepted', 'declined')`),
+  ],
+);
+
 /** A photo or document stored in object storage, belonging to an assessment (and maybe a run). */
 export const attachments = pgTable(
   'attachments',
@@ -387,6 +460,10 @@ export const leadRevisionsRelations = relations(leadRevisions, ({ one }) => ({
   assessment: one(assessments, { fields: [leadRevisions.assessmentId], references: [assessments.id] }),
 }));
 
+export const reportsRelations = relations(reports, ({ one }) => ({
+  assessment: one(assessments, { fields: [reports.assessmentId], references: [assessments.id] }),
+}));
+
 export const pipeRunsRelations = relations(pipeRuns, ({ one }) => ({
   assessment: one(assessments, { fields: [pipeRuns.assessmentId], references: [assessments.id] }),
 }));
@@ -408,3 +485,5 @@ export type ActivityEntry = typeof activityLog.$inferSelect;
 export type ConsultantProfile = typeof consultantProfiles.$inferSelect;
 export type ConsultantInvitation = typeof consultantInvitations.$inferSelect;
 export type LeadRevision = typeof leadRevisions.$inferSelect;
+export type Report = typeof reports.$inferSelect;
+export type ConsultantPriceTable = typeof consultantPriceTables.$inferSelect;

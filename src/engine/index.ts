@@ -56,6 +56,7 @@ export {
   measurementsSchema,
   fittingInputSchema,
   runPriceSchema,
+  priceTableSchema,
   OPTION_KINDS,
   type OptionKind,
   type PlantInput,

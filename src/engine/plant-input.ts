@@ -252,7 +252,8 @@ export const areaSchema = z.object({
   confidence: confidence('Area conditions confidence').default('guessed'),
 });
 
-const priceTableSchema = z
+/** A price table of installed costs in place of the demo one (a consultant's own prices). */
+export const priceTableSchema = z
   .object({
     label: text('Price table label', 120),
     pipeOuterDiametersM: z

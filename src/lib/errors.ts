@@ -29,6 +29,8 @@ export class DomainError extends Error {
     readonly field?: string,
     /** Plain data the caller can act on (e.g. who claimed a lead first, and when). */
     readonly details?: Record<string, unknown>,
+    /** Every field at fault, when there is more than one (`field` is the first). */
+    readonly issues?: readonly { path: string; message: string }[],
   ) {
     super(message);
     this.name = 'DomainError';

@@ -121,7 +121,7 @@ export function responseForError(error: unknown, context: { method: string; path
   if (error instanceof HttpResponseError) return error.response;
   if (isBodyTooLarge(error)) return errorResponse(413, 'PAYLOAD_TOO_LARGE', `${error.message} Send fewer or smaller items.`);
   if (error instanceof DomainError) {
-    const issues = error.field ? [{ path: error.field, message: error.message }] : undefined;
+    const issues = error.issues?.length ? [...error.issues] : error.field ? [{ path: error.field, message: error.message }] : undefined;
     const response = errorResponse(domainStatus[error.code], error.code, error.message, issues, error.details);
     if (error.retryAfterSeconds !== undefined) response.headers.set('retry-after', String(error.retryAfterSeconds));
     return response;

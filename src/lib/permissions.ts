@@ -13,18 +13,25 @@ export const statements = {
   consultant: ['list', 'manage'],
   activity: ['read-all'],
   settings: ['manage'],
+  /** A follow-up report: reading one (who may read which is decided per report), and the owner's answer. */
+  report: ['read', 'answer'],
+  /** A consultant's own installed-price table. */
+  prices: ['manage-own'],
 } as const;
 
 export const accessControl = createAccessControl(statements);
 
 export const ownerRole = accessControl.newRole({
   assessment: ['read-own'],
+  report: ['read', 'answer'],
 });
 
 export const consultantRole = accessControl.newRole({
   assessment: [],
   lead: ['list-open', 'claim', 'read-claimed', 'update', 'send-report'],
   region: ['list'],
+  report: ['read'],
+  prices: ['manage-own'],
 });
 
 export const adminRole = accessControl.newRole({
@@ -35,6 +42,8 @@ export const adminRole = accessControl.newRole({
   consultant: ['list', 'manage'],
   activity: ['read-all'],
   settings: ['manage'],
+  report: ['read'],
+  prices: ['manage-own'],
 });
 
 export const roles = { owner: ownerRole, consultant: consultantRole, admin: adminRole } as const;

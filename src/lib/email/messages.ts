@@ -28,6 +28,10 @@ export type OutgoingEmail =
         more: number;
       };
     }
-  | { template: 'lead-assigned'; to: string; props: { assessmentId: string; consultantName: string; reason: string } };
+  | { template: 'lead-assigned'; to: string; props: { assessmentId: string; consultantName: string; reason: string } }
+  /** To the owner: a report version is out, with its link and the PDF attached. */
+  | { template: 'report-sent'; to: string; props: { reportId: string } }
+  /** To the consultant holding the lead: the owner accepted or declined a version. */
+  | { template: 'report-answered'; to: string; props: { reportId: string } };
 
 export type EmailTemplateName = OutgoingEmail['template'];

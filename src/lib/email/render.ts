@@ -18,6 +18,7 @@ import { ConsultantAlert, consultantAlertSubject } from './templates/ConsultantA
 import { ConsultantIntroduction, consultantIntroductionSubject } from './templates/ConsultantIntroduction';
 import { findConsultantProfile } from '../../db/queries/leads';
 import { SignInLink, signInLinkSubject } from './templates/SignInLink';
+import { reportMailFor } from '../reports/mail';
 import { SubmissionConfirmation, submissionConfirmationSubject } from './templates/SubmissionConfirmation';
 import {
   ConsultantInvitation,
@@ -166,6 +167,12 @@ export async function renderEmail(email: OutgoingEmail): Promise<RenderedEmail> 
         leadUrl: `${appBaseUrl()}/desk/leads/${found.id}`,
       };
       return { to: email.to, subject: leadAssignedSubject(props), ...(await both(createElement(LeadAssigned, props))) };
+    }
+    case 'report-sent':
+    case 'report-answered': {
+      const mail = await reportMailFor(email);
+      if (!mail) throw new NothingToSend(`report ${email.props.reportId} no longer exists`);
+      return { to: email.to, subject: mail.subject, ...(await both(mail.element)), ...(mail.attachments ? { attachments: mail.attachments } : {}) };
     }
   }
 }

@@ -12,6 +12,7 @@ import type { LinkMailMetadata, SubmissionLinkMetadata } from '../sign-in-links'
 import { alertAdminsOfUnrouted, mailStaleDigest } from '../admin/oversight';
 import { derivedJobId, enqueue, jobExists, jobNames } from './queue';
 import type { JobName, JobPayloads } from './names';
+import { NoReportToRender, renderAndStoreReportPdf } from '../reports/pdf-job';
 
 type Handler<N extends JobName> = (job: PgBoss.Job<JobPayloads[N]>) => Promise<void>;
 
@@ -105,5 +106,17 @@ export const jobHandlers: { [N in JobName]: Handler<N> } = {
       body: { email: job.data.email, callbackURL: job.data.next, metadata: { ...metadata } },
       headers: new Headers(),
     });
+  },
+
+  'report-pdf-render': async (job) => {
+    try {
+      await renderAndStoreReportPdf(job.data.reportId);
+    } catch (error) {
+      if (error instanceof NoReportToRender) {
+        console.warn(`[worker] dropped: ${error.message}`);
+        return;
+      }
+      throw error;
+    }
   },
 };

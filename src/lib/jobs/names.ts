@@ -14,6 +14,8 @@ export const jobNames = {
   checkStaleLeads: 'stale-leads-check',
   /** Someone asked for a sign-in link: mail one if the address has an account, else nothing. */
   requestSignInLink: 'sign-in-link-request',
+  /** Render a sent report's PDF into object storage, then queue the owner's e-mail with it attached. */
+  renderReportPdf: 'report-pdf-render',
 } as const;
 
 export type JobName = (typeof jobNames)[keyof typeof jobNames];
@@ -29,6 +31,7 @@ export interface JobPayloads {
   'admins-unrouted-alert': { assessmentId: string };
   'stale-leads-check': Record<string, never>;
   'sign-in-link-request': { email: string; next: string };
+  'report-pdf-render': { reportId: string };
 }
 
 /** When the stale-lead check runs (cron, UTC): hourly, so a digest goes out soon after leads go stale. */
@@ -46,6 +49,7 @@ export function queuePolicies(retryDelaySeconds: number, expireInSeconds = 300) 
     'submission-confirm': patient,
     'consultants-alert': patient,
     'admins-unrouted-alert': patient,
+    'report-pdf-render': patient,
     // The next hour's run does the same work; no need to retry for long.
     'stale-leads-check': { retryLimit: 2, retryDelay: retryDelaySeconds, retryBackoff: true, retentionDays: 2 },
     'sign-in-link-request': { ...patient, retryLimit: 5 },
