@@ -8,6 +8,7 @@ import path from 'node:path';
 import { migrateDatabase } from '../../src/db/migrate.ts';
 import { appUrl, databaseUrl, loadConfig, projectRoot, stateRoot, type StackConfig } from './config.ts';
 import { ensureChromium } from './chromium.ts';
+import { ensurePdftotext } from './poppler.ts';
 import { StackError } from './errors.ts';
 import { clusterDir, clusterIsOutside, outsideClusterRoot, ensureDatabase, ensurePostgresInstalled, initCluster, startPostgres } from './postgres.ts';
 import {
@@ -190,6 +191,7 @@ async function test(): Promise<void> {
   // Each run's logs start empty, so a failure shows this run's lines only.
   for (const name of ['postgres', 'web', 'worker', 'mail', 's3', 'build', 'check']) rmSync(path.join(config.stateDir, `${name}.log`), { force: true });
   const chromium = ensureChromium();
+  const pdftotext = ensurePdftotext();
   await bringUpDatabase(config, { fresh: true });
   await startFakes(config);
   await build(config);
@@ -210,6 +212,7 @@ async function test(): Promise<void> {
     LAGWISE_APP_URL: appUrl(config),
     LAGWISE_MAIL_FAKE_URL: mailFakeUrl(config),
     LAGWISE_CHROMIUM: chromium,
+    LAGWISE_PDFTOTEXT: pdftotext,
     LAGWISE_TEST_STATE_DIR: config.stateDir,
   };
   const extra = process.argv.slice(3);

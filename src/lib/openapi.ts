@@ -13,6 +13,7 @@ import { ENGINE_VERSION, plantInputSchema } from '../engine';
 import { adminPaths, adminSchemas } from './openapi-admin';
 import { leadPaths, leadSchemas } from './openapi-leads';
 import { revisionPaths, revisionSchemas } from './openapi-revisions';
+import { reportPaths, reportSchemas } from './openapi-reports';
 import { APP_VERSION } from './site';
 
 const inputSchema = (schema: z.ZodType) => z.toJSONSchema(schema, { io: 'input', unrepresentable: 'any', target: 'draft-2020-12' });
@@ -128,6 +129,7 @@ export function openApiDocument() {
       ...leadPaths(),
       ...adminPaths(),
       ...revisionPaths(),
+      ...reportPaths(),
     },
     components: {
       schemas: {
@@ -137,6 +139,7 @@ export function openApiDocument() {
         ...answerSchemas(),
         ...leadSchemas(),
         ...revisionSchemas(),
+        ...reportSchemas(),
       },
     },
   };

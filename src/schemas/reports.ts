@@ -143,6 +143,7 @@ export const priceTableRequestSchema = z.strictObject(
 export type PriceTableRequest = z.infer<typeof priceTableRequestSchema>;
 
 const isoTime = z.string().describe('ISO 8601 time');
+const photoSchema = z.object({ id: z.uuid(), url: z.string(), runId: z.string().nullable(), caption: z.string(), expiresAt: isoTime });
 const personSchema = z.object({
   name: z.string(),
   firm: z.string().nullable(),
@@ -217,9 +218,9 @@ export const reportResponseSchema = z.object({
     /** Where the installed prices come from: the consultant's own table, or the demo table and why. */
     priceBasis: z.object({ kind: z.enum(['own-table', 'demo-table']), note: z.string() }),
     /** Photos the report shows, with short-lived links. */
-    photos: z.array(z.object({ id: z.uuid(), url: z.string(), runId: z.string().nullable(), expiresAt: isoTime })),
+    photos: z.array(photoSchema),
     /** Photos of the lead the composer can choose from (drafts only). */
-    photoChoices: z.array(z.object({ id: z.uuid(), url: z.string(), runId: z.string().nullable(), expiresAt: isoTime })).nullable(),
+    photoChoices: z.array(photoSchema).nullable(),
     pdfUrl: z.string().nullable(),
     allowed: z.object({ edit: z.boolean(), send: z.boolean(), answer: z.boolean() }),
   }),

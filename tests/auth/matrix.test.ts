@@ -12,6 +12,7 @@ import { stopSender } from '../../src/lib/jobs/queue';
 import { DEMO_PASSWORD } from '../../scripts/seed/demo-people';
 import { asPerson, ensureConsultant, ensureDeskRegion, ownerCookie, passwordCookie, submitLead, type SubmittedLead } from '../support/desk';
 import { onDemandRoutes } from '../support/routes';
+import { waitForPdf } from '../support/reports';
 import { appFetch } from '../support/stack';
 
 const personas = ['anonymous', 'owner', 'otherOwner', 'consultantIn', 'consultantOut', 'bannedConsultant', 'admin'] as const;
@@ -21,6 +22,9 @@ type Expected = Record<Persona, number>;
 interface World {
   /** A lead of the matrix region, claimed by `consultantIn`; `owner` sent it. */
   held: SubmittedLead;
+  /** A second lead of `owner`, also held by `consultantIn`, with version 1 of a report sent and its PDF rendered. */
+  reported: SubmittedLead;
+  reportId: string;
 }
 
 interface Row {
@@ -57,6 +61,8 @@ const deskApi = ({ inRegion, out = inRegion, admin = inRegion }: { inRegion: num
 });
 
 const lead = (w: World) => w.held.id;
+/** A sent report: its owner, the consultant holding the lead and admins read it; anyone else finds nothing. */
+const reportApi = (status: number): Expected => ({ anonymous: 401, owner: status, otherOwner: 404, consultantIn: status, consultantOut: 404, bannedConsultant: 401, admin: status });
 /** Admin pages: only admins; consultants and owners are shown the refusal page, the signed-out sent to sign in. */
 const adminPage = (): Expected => ({ ...deskPage(), consultantIn: 403, consultantOut: 403 });
 /** Admin API: `status` for admins; 401 signed out (and banned), 403 for everyone else. */
@@ -135,6 +141,37 @@ const rows: Row[] = [
     body: { json: { baseNumber: 0, reason: '' } },
     expect: deskApi({ inRegion: 400, out: 404 }),
   },
+  // The follow-up report: the owner, the consultant holding the lead and admins; everyone else as for no report at all.
+  { method: 'GET', route: '/desk/leads/[id]/report', path: (w) => `/desk/leads/${w.reported.id}/report`, expect: deskPage({ out: 404 }) },
+  { method: 'GET', route: '/desk/prices', path: () => '/desk/prices', expect: deskPage() },
+  { method: 'GET', route: '/desk/reports/[id]', path: (w) => `/desk/reports/${w.reportId}`, expect: deskPage({ out: 404 }) },
+  {
+    method: 'GET',
+    route: '/my/reports/[id]',
+    path: (w) => `/my/reports/${w.reportId}`,
+    expect: { ...signedInPage(404), owner: 200, consultantIn: 403, consultantOut: 403, admin: 200 },
+  },
+  { method: 'GET', route: '/api/leads/[id]/reports', path: (w) => `/api/leads/${w.reported.id}/reports`, expect: deskApi({ inRegion: 200, out: 404 }) },
+  {
+    method: 'POST',
+    route: '/api/leads/[id]/reports',
+    path: (w) => `/api/leads/${w.reported.id}/reports`,
+    body: { json: { fromVersion: 99 } },
+    expect: deskApi({ inRegion: 400, out: 404 }),
+  },
+  { method: 'GET', route: '/api/reports/[id]', path: (w) => `/api/reports/${w.reportId}`, expect: reportApi(200) },
+  { method: 'PATCH', route: '/api/reports/[id]', path: (w) => `/api/reports/${w.reportId}`, body: { json: {} }, expect: { ...deskApi({ inRegion: 409, out: 404 }) } },
+  { method: 'POST', route: '/api/reports/[id]/send', path: (w) => `/api/reports/${w.reportId}/send`, body: { json: {} }, expect: deskApi({ inRegion: 200, out: 404 }) },
+  { method: 'GET', route: '/api/reports/[id]/pdf', path: (w) => `/api/reports/${w.reportId}/pdf`, expect: reportApi(200) },
+  {
+    method: 'POST',
+    route: '/api/reports/[id]/answer',
+    path: (w) => `/api/reports/${w.reportId}/answer`,
+    body: { json: {} },
+    expect: { anonymous: 401, owner: 400, otherOwner: 404, consultantIn: 403, consultantOut: 403, bannedConsultant: 401, admin: 403 },
+  },
+  { method: 'GET', route: '/api/consultants/me/prices', path: () => '/api/consultants/me/prices', expect: deskApi({ inRegion: 200 }) },
+  { method: 'PUT', route: '/api/consultants/me/prices', path: () => '/api/consultants/me/prices', body: { json: {} }, expect: deskApi({ inRegion: 400 }) },
   { method: 'POST', route: '/api/sign-out', path: () => '/api/sign-out', body: { form: {} }, expect: all(303) },
 ];
 
@@ -165,6 +202,7 @@ describe('the authorisation matrix', () => {
     const bannedId = await ensureConsultant({ email: 'matrix-banned@quoll-thermal.example', name: 'Bo Quoll', firm: 'Quoll Thermal', regionIds: [inRegion] });
 
     world.held = await submitLead('3710', { email: `owner.${stamp}@gum-flats-dairy.example` });
+    world.reported = await submitLead('3711', { email: `owner.${stamp}@gum-flats-dairy.example` });
     const other = await submitLead('3712', { email: `other.${stamp}@gum-flats-bakery.example` });
 
     cookies.anonymous = null;
@@ -177,6 +215,13 @@ describe('the authorisation matrix', () => {
     // The held lead: claimed by the consultant of its region.
     const claimed = await asPerson(cookies.consultantIn, `/api/leads/${world.held.id}/claim`, { method: 'POST', body: {} });
     expect(claimed.status).toBe(200);
+    // The second lead: claimed too, with version 1 of a report sent and its PDF rendered by the worker.
+    expect((await asPerson(cookies.consultantIn, `/api/leads/${world.reported.id}/claim`, { method: 'POST', body: {} })).status).toBe(200);
+    const draft = await asPerson(cookies.consultantIn, `/api/leads/${world.reported.id}/reports`, { method: 'POST', body: {} });
+    expect(draft.status).toBe(201);
+    world.reportId = ((await draft.json()) as { report: { id: string } }).report.id;
+    expect((await asPerson(cookies.consultantIn, `/api/reports/${world.reportId}/send`, { method: 'POST', body: {} })).status).toBe(201);
+    await waitForPdf(cookies.consultantIn, world.reportId);
     // Deactivated after signing in: the session cookie still exists; the account is banned.
     await getDb().update(user).set({ banned: true, banReason: 'left the firm' }).where(eq(user.id, bannedId));
   });
@@ -200,7 +245,7 @@ describe('the authorisation matrix', () => {
         const response = await send(row, persona);
         const text = await response.text();
         expect(response.status, text.slice(0, 300)).toBe(row.expect[persona]);
-        if ((row.route.startsWith('/api/leads') || row.route.startsWith('/api/admin')) && response.status >= 400) {
+        if (/^\/api\/(leads|admin|reports|consultants)/.test(row.route) && response.status >= 400) {
           expect(response.headers.get('content-type')).toContain('application/json');
           expect(JSON.parse(text)).toMatchObject({ error: { code: expect.any(String), message: expect.any(String) } });
         }

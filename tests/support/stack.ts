@@ -21,6 +21,9 @@ export const stack = {
   get chromium() {
     return required('LAGWISE_CHROMIUM');
   },
+  get pdftotext() {
+    return required('LAGWISE_PDFTOTEXT');
+  },
   get stateDir() {
     return required('LAGWISE_TEST_STATE_DIR');
   },

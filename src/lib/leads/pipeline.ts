@@ -78,6 +78,7 @@ export const closeReasons = [
   { id: 'too-small', label: 'Savings too small to act on' },
   { id: 'went-elsewhere', label: 'The owner chose another firm' },
   { id: 'postponed', label: 'The owner put the work off' },
+  { id: 'report-declined', label: 'The owner declined the report' },
   { id: 'not-our-work', label: 'Not work we do' },
   { id: 'other', label: 'Something else (say what in the note)' },
 ] as const;

@@ -52,6 +52,13 @@ export function timelineLine(entry: ActivityEntryView): TimelineLine {
         note: text(d.reason),
       };
     }
+    case 'report.sent':
+      return { what: `${who(entry)} sent version ${typeof d.version === 'number' ? d.version : '?'} of the report`, note: null };
+    case 'report.answered':
+      return {
+        what: d.accept === true ? `The owner accepted version ${String(d.version)} of the report and asks to go ahead` : `The owner declined version ${String(d.version)} of the report`,
+        note: text(d.reason),
+      };
     case 'lead.noted':
       return { what: `${who(entry)} wrote a note`, note: text(d.text) };
     default:

@@ -4,7 +4,7 @@
  * now with the engine's own suggestion per run beside them.
  */
 import { getDb } from '../../db/client';
-import { findConsultantProfile, listLeadAttachments, type LeadRecord } from '../../db/queries/leads';
+import { findConsultantProfile, listLeadAttachments, listLeadRuns, type LeadRecord } from '../../db/queries/leads';
 import { findPriceTable, listLeadReports } from '../../db/queries/reports';
 import type { Report } from '../../db/schema';
 import type { PlantResult } from '../../engine';
@@ -103,12 +103,15 @@ function priceBasisOfResult(result: PlantResult): PriceBasis {
 }
 
 async function photoLinks(leadId: string, ids: readonly string[] | null) {
-  const files = (await listLeadAttachments(getDb(), leadId)).filter((f) => f.contentType.startsWith('image/'));
+  const [all, runs] = await Promise.all([listLeadAttachments(getDb(), leadId), listLeadRuns(getDb(), leadId)]);
+  const files = all.filter((f) => f.contentType.startsWith('image/'));
+  const labels = new Map(runs.map((run) => [run.id, run.label]));
   const chosen = ids === null ? files : ids.map((id) => files.find((f) => f.id === id)).filter((f): f is (typeof files)[number] => f !== undefined);
   return Promise.all(
     chosen.map(async (file) => {
       const signed = await signedReadUrl(file.objectKey);
-      return { id: file.id, url: signed.url, runId: file.pipeRunId, expiresAt: signed.expiresAt.toISOString() };
+      const caption = file.pipeRunId ? (labels.get(file.pipeRunId) ?? 'A run') : 'The plant';
+      return { id: file.id, url: signed.url, runId: file.pipeRunId, caption, expiresAt: signed.expiresAt.toISOString() };
     }),
   );
 }
