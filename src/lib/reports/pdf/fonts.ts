@@ -1,7 +1,9 @@
 /**
  * Manrope for the PDF, embedded from the package the site ships it in. react-pdf's font reader
  * takes WOFF (not WOFF2); the latin-ext subset is a second family the text falls back to, so
- * names such as Łódź or Třebíč print rightly.
+ * names such as Łódź or Třebíč print rightly. Manrope has no subscript digits, so the "₂" of
+ * CO₂ (and any other sign it lacks) falls back to DejaVu Sans, which the PDF embeds for those
+ * glyphs alone; without it the PDF would print a wrong sign where the web page prints CO₂.
  */
 import { createRequire } from 'node:module';
 import { Font } from '@react-pdf/renderer';
@@ -10,7 +12,7 @@ const require = createRequire(import.meta.url);
 const WEIGHTS = [400, 600, 700, 800] as const;
 
 /** The font families a report's text is set in, in fallback order. */
-export const PDF_FONT_FAMILY = ['Manrope', 'Manrope Extended'];
+export const PDF_FONT_FAMILY = ['Manrope', 'Manrope Extended', 'Lagwise Signs'];
 
 let registered = false;
 
@@ -26,6 +28,10 @@ export function registerReportFonts(): void {
       fonts: WEIGHTS.map((weight) => ({ src: require.resolve(`@fontsource/manrope/files/manrope-${subset}-${weight}-normal.woff`), fontWeight: weight })),
     });
   }
+  Font.register({
+    family: 'Lagwise Signs',
+    fonts: ([400, 700] as const).map((weight) => ({ src: require.resolve(`@fontsource/dejavu-sans/files/dejavu-sans-latin-${weight}-normal.woff`), fontWeight: weight })),
+  });
   // Words are never broken across lines: a hyphenated figure or name reads wrongly.
   Font.registerHyphenationCallback((word) => [word]);
   registered = true;
