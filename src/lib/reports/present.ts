@@ -20,7 +20,7 @@ import type { FindingKind, ReportComposition, RunChoice } from '../../schemas/re
 import type { UnitSystem } from '../units-display';
 import { cautions, type Caution } from '../cautions';
 import { reportFigures, QUICK_WIN_YEARS, type ReportFigures } from './figures';
-import { reportFormat, type ReportFormat } from './format';
+import { displayFormat, type DisplayFormat } from '../presentation';
 
 /** What a report is presented from. */
 export interface ReportSource {
@@ -152,7 +152,7 @@ function serviceName(id: string): string {
   return (SERVICE_IDS as readonly string[]).includes(id) ? serviceDefaults(id as ServiceId).name : id;
 }
 
-function recommendationOf(run: RunEstimate, f: ReportFormat): string {
+function recommendationOf(run: RunEstimate, f: DisplayFormat): string {
   const option = run.proposed.option;
   if (option === 'leave') return OPTION_LABELS.leave;
   const covers = run.proposed.coverFittings && run.fittings.uncoveredCount > 0 ? `, removable covers on ${run.fittings.uncoveredCount} fitting${run.fittings.uncoveredCount === 1 ? '' : 's'}` : '';
@@ -160,7 +160,7 @@ function recommendationOf(run: RunEstimate, f: ReportFormat): string {
   return `${OPTION_LABELS[option]}: ${f.thickness(run.proposed.thicknessM)} ${materialName(run.proposed.material).toLowerCase()}, ${surfaceName(run.proposed.jacket).toLowerCase()}${covers}`;
 }
 
-function hazardSentences(run: RunEstimate, f: ReportFormat): string[] {
+function hazardSentences(run: RunEstimate, f: DisplayFormat): string[] {
   return run.hazards.map((hazard) => {
     switch (hazard.code) {
       case 'SURFACE_ABOVE_TOUCH_LIMIT':
@@ -177,7 +177,7 @@ function hazardSentences(run: RunEstimate, f: ReportFormat): string[] {
   });
 }
 
-function paybackText(f: ReportFormat, years: number | null): string {
+function paybackText(f: DisplayFormat, years: number | null): string {
   return years === null ? 'for safety' : f.years(years);
 }
 
@@ -185,7 +185,7 @@ function runsOfInput(plant: Record<string, unknown>): Record<string, unknown>[] 
   return Array.isArray(plant.runs) ? (plant.runs as Record<string, unknown>[]) : [];
 }
 
-function presentRun(run: RunEstimate, choice: RunChoice | undefined, f: ReportFormat, atmosphereKPa: number): PresentedReportRun {
+function presentRun(run: RunEstimate, choice: RunChoice | undefined, f: DisplayFormat, atmosphereKPa: number): PresentedReportRun {
   const pressure = run.steamAbsolutePressureKPa === null ? null : f.quantity(run.steamAbsolutePressureKPa - atmosphereKPa, 'gaugePressure');
   const line = [serviceName(run.service), f.quantity(run.lengthM, 'length'), f.temperature(run.fluidTemperatureC), pressure].filter(Boolean).join(' · ');
   const heat = `${run.cold ? 'gains' : 'loses'} ${f.quantity(Math.abs(run.current.heatLossWPerM), 'heatPerLength')}`;
@@ -207,7 +207,7 @@ function presentRun(run: RunEstimate, choice: RunChoice | undefined, f: ReportFo
 }
 
 /** Cumulative position year by year after paying for the work (incentives counted), as bars. */
-function cashFlowChart(figures: ReportFigures, f: ReportFormat): ReportChart {
+function cashFlowChart(figures: ReportFigures, f: DisplayFormat): ReportChart {
   const width = 600;
   const height = 220;
   const left = 70;
@@ -255,7 +255,7 @@ function cashFlowChart(figures: ReportFigures, f: ReportFormat): ReportChart {
 }
 
 /** Yearly cost of each recommended run today against after the work, the largest first (at most 8). */
-function runCostChart(result: PlantResult, f: ReportFormat): ReportChart {
+function runCostChart(result: PlantResult, f: DisplayFormat): ReportChart {
   const width = 600;
   const rows = result.runs.filter((r) => r.proposed.option !== 'leave').sort((a, b) => b.current.annualCost - a.current.annualCost).slice(0, 8);
   const rowHeight = 24;
@@ -286,7 +286,7 @@ function runCostChart(result: PlantResult, f: ReportFormat): ReportChart {
   };
 }
 
-function assumptionsOf(source: ReportSource, f: ReportFormat): PresentedReport['assumptions'] {
+function assumptionsOf(source: ReportSource, f: DisplayFormat): PresentedReport['assumptions'] {
   const { result, plantInput } = source;
   const a = result.assumptions;
   const inputRuns = runsOfInput(plantInput);
@@ -361,7 +361,7 @@ const FINDING_CAUTIONS: Readonly<Record<FindingKind, string>> = {
 /** A report as a person reads it; pure, so every medium shows the same strings. */
 export function presentReport(source: ReportSource): PresentedReport {
   const { result, composition, consultant, plant } = source;
-  const f = reportFormat(plant.unitSystem, result.currency);
+  const f = displayFormat({ system: plant.unitSystem, currency: result.currency });
   const figures = reportFigures(result, composition);
   const choices = new Map(composition.runs.map((c) => [c.runId, c]));
   const labelOf = new Map(result.runs.map((r) => [r.id, r.label]));
