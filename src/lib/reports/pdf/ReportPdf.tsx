@@ -32,14 +32,15 @@ const styles = StyleSheet.create({
   figures: { flexDirection: 'row', flexWrap: 'wrap', marginTop: 12, borderTopWidth: 1, borderTopColor: pdfColours.line },
   figure: { width: '33.33%', paddingVertical: 7, paddingRight: 8, borderBottomWidth: 1, borderBottomColor: pdfColours.line },
   figureLabel: { fontSize: 8, color: pdfColours.soft, textTransform: 'uppercase', letterSpacing: 0.4 },
-  figureValue: { fontSize: 16, fontWeight: 800, marginTop: 2 },
+  figureValue: { fontSize: 16, fontWeight: 800, marginTop: 2, lineHeight: 1.2 },
   row: { flexDirection: 'row', borderBottomWidth: 0.6, borderBottomColor: pdfColours.line, paddingVertical: 4 },
   head: { flexDirection: 'row', backgroundColor: pdfColours.sunken, paddingVertical: 4, fontWeight: 700 },
   cell: { paddingRight: 6 },
   tag: { fontSize: 7.5, fontWeight: 700, color: pdfColours.mineral },
   tagSafety: { fontSize: 7.5, fontWeight: 700, color: pdfColours.ember },
   block: { marginBottom: 6 },
-  footer: { position: 'absolute', bottom: 22, left: 42, right: 42, flexDirection: 'row', justifyContent: 'space-between', fontSize: 7.5, color: pdfColours.soft },
+  footer: { position: 'absolute', left: 42, right: 120, fontSize: 7.5, color: pdfColours.soft },
+  pageNumber: { position: 'absolute', right: 42, width: 70, textAlign: 'right', fontSize: 7.5, color: pdfColours.soft },
   photo: { width: '48%', marginBottom: 8 },
 });
 
@@ -81,6 +82,8 @@ export interface ReportPdfProps {
 /** The whole report as a react-pdf document. */
 export function ReportPdf({ report, pageSize, createdAt, photos }: ReportPdfProps) {
   const contentWidth = (pageSize === 'A4' ? 595.28 : 612) - 84;
+  // Placed from the top: react-pdf 4.9 placed a fixed page-number text set from the bottom ever further off the page as a long report went on, until pdfkit refused the number (a 40-run report failed to render).
+  const footerTop = (pageSize === 'A4' ? 841.89 : 792) - 34;
   return (
     <Document
       title={`${report.title}: ${report.plantName} (${report.reference})`}
@@ -149,22 +152,20 @@ export function ReportPdf({ report, pageSize, createdAt, photos }: ReportPdfProp
           Run by run
         </Text>
         {report.runs.map((run) => (
+          // One paragraph of spans per run: a layout box per line made the run-by-run pages most of a long report's render time.
           <View key={run.id} style={[styles.block, { borderBottomWidth: 0.6, borderBottomColor: pdfColours.line, paddingBottom: 5 }]} wrap={false}>
-            <Text style={{ fontWeight: 700 }}>{run.label}</Text>
-            <Text style={styles.small}>{run.line}</Text>
             <Text>
-              Today: {run.today}, {run.todayCost}.
+              <Text style={{ fontWeight: 700 }}>{run.label}</Text>
+              {'\n'}
+              <Text style={styles.small}>{run.line}</Text>
+              {`\nToday: ${run.today}, ${run.todayCost}.\nRecommended: ${run.recommendation}.\nInstalled ${run.installedCost} (${run.priceSource}) · saves ${run.saving} · pays back ${run.payback}`}
+              {run.reason ? <Text style={styles.soft}>{`\nWhy this choice: ${run.reason}`}</Text> : null}
+              {run.hazards.map((hazard) => (
+                <Text key={hazard} style={{ color: pdfColours.ember }}>
+                  {`\n${hazard}`}
+                </Text>
+              ))}
             </Text>
-            <Text>Recommended: {run.recommendation}.</Text>
-            <Text>
-              Installed {run.installedCost} ({run.priceSource}) · saves {run.saving} · pays back {run.payback}
-            </Text>
-            {run.reason && <Text style={styles.soft}>Why this choice: {run.reason}</Text>}
-            {run.hazards.map((hazard) => (
-              <Text key={hazard} style={{ color: pdfColours.ember }}>
-                {hazard}
-              </Text>
-            ))}
           </View>
         ))}
 
@@ -238,10 +239,10 @@ export function ReportPdf({ report, pageSize, createdAt, photos }: ReportPdfProp
           </View>
         ))}
 
-        <View style={styles.footer} fixed>
-          <Text>{report.footer}</Text>
-          <Text render={({ pageNumber, totalPages }) => `page ${pageNumber} of ${totalPages}`} />
-        </View>
+        <Text style={[styles.footer, { top: footerTop }]} fixed>
+          {report.footer}
+        </Text>
+        <Text style={[styles.pageNumber, { top: footerTop }]} fixed render={({ pageNumber, totalPages }) => `page ${pageNumber} of ${totalPages}`} />
       </Page>
     </Document>
   );

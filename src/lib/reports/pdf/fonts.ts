@@ -5,8 +5,10 @@
  * CO₂ (and any other sign it lacks) falls back to DejaVu Sans, which the PDF embeds for those
  * glyphs alone; without it the PDF would print a wrong sign where the web page prints CO₂.
  */
+import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { Font } from '@react-pdf/renderer';
+import { sfntFromWoff } from './woff';
 
 const require = createRequire(import.meta.url);
 const WEIGHTS = [400, 600, 700, 800] as const;
@@ -15,6 +17,11 @@ const WEIGHTS = [400, 600, 700, 800] as const;
 export const PDF_FONT_FAMILY = ['Manrope', 'Manrope Extended', 'Lagwise Signs'];
 
 let registered = false;
+
+/** A packaged WOFF file as react-pdf takes it: the TrueType inside (see ./woff), as a data URL. */
+function fontSource(file: string): string {
+  return `data:font/ttf;base64,${sfntFromWoff(readFileSync(require.resolve(file))).toString('base64')}`;
+}
 
 /** Registers the fonts once per process. */
 export function registerReportFonts(): void {
@@ -25,12 +32,12 @@ export function registerReportFonts(): void {
   ] as const) {
     Font.register({
       family,
-      fonts: WEIGHTS.map((weight) => ({ src: require.resolve(`@fontsource/manrope/files/manrope-${subset}-${weight}-normal.woff`), fontWeight: weight })),
+      fonts: WEIGHTS.map((weight) => ({ src: fontSource(`@fontsource/manrope/files/manrope-${subset}-${weight}-normal.woff`), fontWeight: weight })),
     });
   }
   Font.register({
     family: 'Lagwise Signs',
-    fonts: ([400, 700] as const).map((weight) => ({ src: require.resolve(`@fontsource/dejavu-sans/files/dejavu-sans-latin-${weight}-normal.woff`), fontWeight: weight })),
+    fonts: ([400, 700] as const).map((weight) => ({ src: fontSource(`@fontsource/dejavu-sans/files/dejavu-sans-latin-${weight}-normal.woff`), fontWeight: weight })),
   });
   // Words are never broken across lines: a hyphenated figure or name reads wrongly.
   Font.registerHyphenationCallback((word) => [word]);
