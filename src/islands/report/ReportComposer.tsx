@@ -13,7 +13,7 @@ import { openDraft, saveDraft, sendReport } from '../../lib/report-client';
 import { presentReport } from '../../lib/reports/present';
 import { viewSource } from '../../lib/reports/source';
 import { displayUnit } from '../../lib/units-display';
-import { findingKinds, type Finding, type ReportComposition, type ReportView, type RunChoice } from '../../schemas/reports';
+import { findingKinds, type Finding, type ReportComposition, type ReportPatch, type ReportView, type RunChoice } from '../../schemas/reports';
 
 export interface ReportComposerProps {
   leadId: string;
@@ -94,7 +94,7 @@ export default function ReportComposer({ leadId, reference, draft: initial, late
     setSave({ kind: 'saved', at: new Date() });
   }
 
-  async function persist(next: ReportComposition) {
+  async function persist(next: ReportPatch) {
     if (!view) return;
     inFlight.current?.abort();
     const controller = new AbortController();
@@ -233,6 +233,22 @@ export default function ReportComposer({ leadId, reference, draft: initial, late
               {view.baseRevisionNumber === 0 ? 'Starts from the owner’s answers.' : `Starts from site walk ${view.baseRevisionNumber}.`} {view.priceBasis.note}{' '}
               <a href="/desk/prices">Your price table</a>
             </p>
+            {view.lead.latestRevisionNumber > view.baseRevisionNumber && (
+              <div className="notice notice-warn" data-newer-walk={view.lead.latestRevisionNumber}>
+                <p>Site walk {view.lead.latestRevisionNumber} was saved after this draft was started. Your choices, prices and notes carry over to it.</p>
+                <button
+                  type="button"
+                  className="btn btn-quiet mt-2"
+                  disabled={save.kind === 'saving'}
+                  onClick={() => {
+                    if (timer.current) clearTimeout(timer.current);
+                    void persist({ ...composition, baseRevisionNumber: view.lead.latestRevisionNumber });
+                  }}
+                >
+                  Work from site walk {view.lead.latestRevisionNumber}
+                </button>
+              </div>
+            )}
             <label className="block">
               <span>A word to the owner at the top</span>
               <textarea rows={3} value={composition.introduction} onChange={(e) => change((c) => ({ ...c, introduction: e.target.value }))} />
