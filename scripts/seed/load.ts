@@ -13,6 +13,7 @@ import { seedDemoAssessments } from './demo-assessments.ts';
 import { seedDeskDemo } from './demo-desk.ts';
 import { seedAdminDemo } from './demo-admin.ts';
 import { seedDemoRevisions } from './demo-revisions.ts';
+import { seedDemoReports } from './demo-reports.ts';
 
 async function seedRegions(): Promise<Map<string, string>> {
   const db = getDb();
@@ -65,8 +66,9 @@ export async function seedDemo(): Promise<void> {
     const assessments = (await seedDemoAssessments()) + (await seedAdminDemo());
     const desk = await seedDeskDemo();
     const walks = await seedDemoRevisions();
+    const reports = await seedDemoReports();
     console.log(
-      `[seed] demo data ready: ${regionIds.size} regions, ${accounts} new accounts, ${assessments + desk.submitted} new assessments, ${desk.histories} desk histories played, ${walks} site walks saved`,
+      `[seed] demo data ready: ${regionIds.size} regions, ${accounts} new accounts, ${assessments + desk.submitted} new assessments, ${desk.histories} desk histories played, ${walks} site walks saved, ${reports} reports sent`,
     );
   } finally {
     await stopSender();

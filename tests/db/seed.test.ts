@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { demoSubmissions } from '../../scripts/seed/demo-assessments';
 import { deskDemoHistories, deskDemoLeads } from '../../scripts/seed/demo-desk';
 import { demoWalks } from '../../scripts/seed/demo-revisions';
+import { demoReports } from '../../scripts/seed/demo-reports';
 import { demoAccounts, demoRegions } from '../../scripts/seed/demo-people';
 import { adminDemoClaims, adminDemoSubmissions, AT_CAP_CONSULTANT } from '../../scripts/seed/demo-admin';
 import { stack } from '../support/stack';
@@ -29,6 +30,8 @@ async function demoCounts(): Promise<Record<string, number>> {
       activity: await count('select count(*) as n from activity_log l join assessments a on a.id = l.assessment_id where a.idempotency_key = any($1)', [keys]),
       profiles: await count('select count(*) as n from consultant_profiles p join "user" u on u.id = p.user_id where u.email = any($1)', [emails]),
       revisions: await count('select count(*) as n from lead_revisions r join assessments a on a.id = r.assessment_id where a.idempotency_key = any($1)', [keys]),
+      reports: await count('select count(*) as n from reports r join assessments a on a.id = r.assessment_id where a.idempotency_key = any($1)', [keys]),
+      priceTables: await count('select count(*) as n from consultant_price_tables p join "user" u on u.id = p.user_id where u.email = any($1)', [emails]),
     };
   } finally {
     await client.end();
@@ -46,10 +49,19 @@ describe('demo data', () => {
       passwords: demoAccounts.length,
       assessments: demoSubmissions.length + deskDemoLeads.length + adminDemoSubmissions.length,
       runs: [...demoSubmissions, ...deskDemoLeads, ...adminDemoSubmissions].flatMap((s) => s.input.estimate.runs).length,
-      // One entry per submission, one per step of each desk history, one per claim of the consultant at their cap, one per site walk.
-      activity: keys.length + [...deskDemoLeads, ...deskDemoHistories].reduce((n, d) => n + d.steps.length, 0) + adminDemoClaims + demoWalks.length,
+      // One entry per submission, one per step of each desk history, one per claim of the consultant at their cap, one per site walk,
+      // one per report sent and one per owner's answer.
+      activity:
+        keys.length +
+        [...deskDemoLeads, ...deskDemoHistories].reduce((n, d) => n + d.steps.length, 0) +
+        adminDemoClaims +
+        demoWalks.length +
+        demoReports.length +
+        demoReports.filter((r) => r.answer).length,
       profiles: demoAccounts.filter((a) => a.role === 'consultant').length,
       revisions: demoWalks.length,
+      reports: demoReports.length,
+      priceTables: new Set(demoReports.map((r) => r.by)).size,
     });
 
     execFileSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], { env: process.env, stdio: 'pipe' });
@@ -98,7 +110,7 @@ describe('the demo desk', () => {
         expect(held.rows.length, `${consultant.email} held`).toBeGreaterThan(0);
         for (const row of held.rows) stagesSeen.add(row.status);
       }
-      expect([...stagesSeen].sort()).toEqual(['claimed', 'closed', 'in_touch', 'site_walk_booked']);
+      expect([...stagesSeen].sort()).toEqual(['claimed', 'closed', 'in_touch', 'report_sent', 'site_walk_booked']);
       const released = await client.query<{ n: string }>(
         `select count(*) as n from activity_log l join assessments a on a.id = l.assessment_id where l.action = 'lead.released' and a.status = 'fresh' and a.idempotency_key = any($1)`,
         [keys],
@@ -128,6 +140,27 @@ describe('the demo site walks', () => {
         expect(row.revision_number).toBe(1);
         expect(row.annual_loss_cost).toBe(row.likely);
         expect(demoWalks.find((w) => w.key === row.key)?.by).toBe(consultant.email);
+      }
+    } finally {
+      await client.end();
+    }
+  });
+});
+
+describe('the demo reports', () => {
+  it('send version 1 of a report from each walked demo lead named, the owner’s answer recorded where one was given', async () => {
+    const client = new pg.Client({ connectionString: stack.databaseUrl });
+    await client.connect();
+    try {
+      for (const demo of demoReports) {
+        const { rows } = await client.query<{ status: string; version: number; base: number; answer: string | null; author: string; lead_status: string }>(
+          `select r.status, r.version, r.base_revision_number as base, r.answer, u.email as author, a.status as lead_status
+           from reports r join assessments a on a.id = r.assessment_id join "user" u on u.id = r.author_user_id where a.idempotency_key = $1`,
+          [demo.key],
+        );
+        expect(rows, demo.key).toEqual([
+          { status: 'sent', version: 1, base: 1, answer: demo.answer ? (demo.answer.accept ? 'accepted' : 'declined') : null, author: demo.by, lead_status: 'report_sent' },
+        ]);
       }
     } finally {
       await client.end();

@@ -1,11 +1,13 @@
 /**
- * The inventory a report starts from: the lead's latest state — the owner's answers (number 0)
- * or, once site walks are saved, the latest revision — as the engine takes it. The one place
- * the report reads a lead's inventory.
+ * The inventory a report starts from: one state of the lead's — the owner's answers (number 0)
+ * or a site-walk revision (1, 2, …) — as the engine takes it. A new draft starts from the latest
+ * (the lead's revision number); a draft keeps the state it was started from until the consultant
+ * moves it to a newer walk. The one place the report reads a lead's inventory.
  */
 import type { Executor } from '../../db/client';
-import { listLeadRuns } from '../../db/queries/leads';
+import { findRevision, listRunSpecs } from '../../db/queries/revisions';
 import type { Assessment } from '../../db/schema';
+import { storedPlantInput } from '../assessments/stored-result';
 
 /** One state of a lead's inventory: its number and the plant as the engine takes it. */
 export interface InventoryBase {
@@ -16,11 +18,8 @@ export interface InventoryBase {
   readonly latestNumber: number;
 }
 
-/** The owner's answers as the engine takes them: the questionnaire's estimate answers with each run's spec. */
-function originalPlant(questionnaire: unknown, runSpecs: readonly unknown[]): Record<string, unknown> {
-  const estimate = (questionnaire as { estimate?: unknown } | null)?.estimate;
-  const answers = typeof estimate === 'object' && estimate !== null ? (estimate as Record<string, unknown>) : {};
-  return { ...answers, runs: [...runSpecs] };
+function asPlant(value: unknown): Record<string, unknown> {
+  return typeof value === 'object' && value !== null ? (value as Record<string, unknown>) : { runs: [] };
 }
 
 /**
@@ -28,14 +27,15 @@ function originalPlant(questionnaire: unknown, runSpecs: readonly unknown[]): Re
  * lead has no such state.
  */
 export async function loadInventory(db: Executor, lead: Assessment, number?: number): Promise<InventoryBase | null> {
-  const latestNumber = 0;
+  const latestNumber = latestInventoryNumber(lead);
   const wanted = number ?? latestNumber;
-  if (wanted !== 0) return null;
-  const runs = await listLeadRuns(db, lead.id);
-  return { number: 0, plant: originalPlant(lead.questionnaire, runs.map((r) => r.spec)), latestNumber };
+  if (wanted === 0) return { number: 0, plant: asPlant(storedPlantInput(lead.questionnaire, await listRunSpecs(db, lead.id))), latestNumber };
+  if (wanted < 0 || wanted > latestNumber) return null;
+  const revision = await findRevision(db, lead.id, wanted);
+  return revision ? { number: wanted, plant: asPlant(revision.plantInput), latestNumber } : null;
 }
 
-/** The number of the lead's latest inventory state. */
-export function latestInventoryNumber(_lead: Assessment): number {
-  return 0;
+/** The number of the lead's latest inventory state: its latest site walk, or 0 for the owner's answers. */
+export function latestInventoryNumber(lead: Pick<Assessment, 'revisionNumber'>): number {
+  return lead.revisionNumber;
 }
