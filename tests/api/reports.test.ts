@@ -305,6 +305,46 @@ describe('the follow-up report', () => {
     expect(late.status).toBe(409);
   });
 
+  it('starts a draft from the lead’s latest site walk, and moves it to a newer walk only when asked', async () => {
+    const walkedLead = await submitLead('2203', { email: `reports-walked.${STAMP}@tallowwood-creamery.example` });
+    expect((await asPerson(holder, `/api/leads/${walkedLead.id}/claim`, { method: 'POST', body: {} })).status).toBe(200);
+    const history = await json<{ original: { plant: { runs: { id: string; lengthM: number }[] } } }>(await asPerson(holder, `/api/leads/${walkedLead.id}/revisions`));
+    const walk = async (baseNumber: number, lengthM: number) => {
+      const runs = history.original.plant.runs.map((run) => (run.id === 'steam-1' ? { ...run, lengthM } : run));
+      const saved = await asPerson(holder, `/api/leads/${walkedLead.id}/revisions`, { method: 'POST', body: { baseNumber, reason: `Paced the header: ${lengthM} m`, runs, areas: [] } });
+      expect(saved.status, await saved.clone().text()).toBe(201);
+    };
+    const steamLength = (report: ReportBody['report']) => (report.result.runs as unknown as { id: string; lengthM: number }[]).find((r) => r.id === 'steam-1')?.lengthM;
+    expect(history.original.plant.runs.find((r) => r.id === 'steam-1')?.lengthM).toBe(20);
+    await walk(0, 31);
+
+    const opened = await asPerson(holder, `/api/leads/${walkedLead.id}/reports`, { method: 'POST', body: {} });
+    expect(opened.status).toBe(201);
+    const draft = (await json<ReportBody & { report: { baseRevisionNumber: number } }>(opened)).report;
+    expect(draft.baseRevisionNumber).toBe(1);
+    expect(steamLength(draft)).toBe(31);
+
+    // A second walk saved after the draft was started: the draft stays on walk 1 and says a newer one is there.
+    await walk(1, 33);
+    const kept = (await json<{ report: ReportBody['report'] & { baseRevisionNumber: number; lead: { latestRevisionNumber: number } } }>(await asPerson(holder, `/api/reports/${draft.id}`))).report;
+    expect(kept).toMatchObject({ baseRevisionNumber: 1, lead: { latestRevisionNumber: 2 } });
+    expect(steamLength(kept)).toBe(31);
+
+    const missing = await asPerson(holder, `/api/reports/${draft.id}`, { method: 'PATCH', body: { baseRevisionNumber: 3 } });
+    expect(missing.status).toBe(400);
+    expect((await json<ErrorBody>(missing)).error.issues?.map((i) => i.path)).toEqual(['baseRevisionNumber']);
+
+    const moved = (await json<{ report: ReportBody['report'] & { baseRevisionNumber: number } }>(await asPerson(holder, `/api/reports/${draft.id}`, { method: 'PATCH', body: { baseRevisionNumber: 2 } }))).report;
+    expect(moved.baseRevisionNumber).toBe(2);
+    expect(steamLength(moved)).toBe(33);
+
+    const sent = await asPerson(holder, `/api/reports/${draft.id}/send`, { method: 'POST', body: {} });
+    expect(sent.status).toBe(201);
+    await waitForPdf(holder, draft.id);
+    const page = await (await asPerson(holder, `/desk/reports/${draft.id}`)).text();
+    expect(page).toContain('Based on site walk 2');
+  });
+
   it('answers odd requests to every report route without a 500', async () => {
     const bodies = [null, [], 'text', 42, { accept: null }, { runs: 'all' }, { currency: 'AUD', priceTable: { label: 'x', pipeOuterDiametersM: [], thicknessesM: [], costPerMetre: [], fittingCoverCostEach: [] } }];
     const routes: [string, string][] = [

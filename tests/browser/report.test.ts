@@ -125,7 +125,7 @@ describe('the follow-up report, in a browser', () => {
   it('the owner opens the e-mail’s link on a phone, downloads the PDF and accepts', async () => {
     const mail = await waitForMessages(lead.ownerEmail, (all) => all.some((m) => m.subject.startsWith('Your follow-up report')));
     const message = mail.find((m) => m.subject.startsWith('Your follow-up report'))!;
-    reportUrl = /href="([^"]*\/my\/reports\/[0-9a-f-]{36})"/.exec(message.html ?? "")?.[1] ?? '';
+    reportUrl = /href="([^"]*\/my\/reports\/[0-9a-f-]{36})"/.exec(message.html ?? '')?.[1] ?? '';
     expect(reportUrl).not.toBe('');
 
     const phone = await browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, acceptDownloads: true });
