@@ -85,7 +85,13 @@ describe('the follow-up report, in a browser', () => {
     const page = await signIn(desktop, holder.email);
     const problems = watchForErrors(page);
     await page.goto(new URL(`/desk/leads/${lead.id}/report`, stack.appUrl).href, { waitUntil: 'networkidle' });
+    expect(problems).toEqual([]);
+    // The composer is an island: wait until it is live (hydrated) before starting from it.
+    await page.locator('astro-island:not([ssr])').first().waitFor({ state: 'attached' });
+    await shot(page, 'report-start-1280');
     await page.getByRole('button', { name: 'Start the report' }).click();
+    await page.locator('[data-save-state="saved"]').or(page.getByRole('alert')).first().waitFor();
+    expect(problems).toEqual([]);
     await page.getByText('Starts from site walk 1.').waitFor();
 
     // The walk's length is what the composer works from: 31 m, not the owner's 20 m.

@@ -14,7 +14,8 @@ import type { SessionUser } from '../session';
 import { mayCompose, reachLeadReports, reachReport, type ReachedLead } from './access';
 import { loadInventory } from './base';
 import { composeInput, compositionIssues, estimateComposed } from './compose';
-import { compositionOf, leadPhotoIds, ownPricesOf, reportView } from './read';
+import { compositionOf } from './composition';
+import { leadPhotoIds, ownPricesOf, reportView } from './read';
 
 function cannotCompose(reached: ReachedLead): DomainError {
   if (reached.role === 'owner') return new DomainError('FORBIDDEN', 'Reports are written by the consultant who holds the lead.');

@@ -9,8 +9,6 @@ import { findPriceTable, listLeadReports } from '../../db/queries/reports';
 import type { Report } from '../../db/schema';
 import type { PlantResult } from '../../engine';
 import {
-  reportCompositionSchema,
-  type ReportComposition,
   type ReportListResponse,
   type ReportSummary,
   type ReportView,
@@ -22,24 +20,11 @@ import { signedReadUrl } from '../storage/objects';
 import { mayCompose, mayRead, reachLeadReports, reachReport, type ReportRole } from './access';
 import { latestInventoryNumber, loadInventory } from './base';
 import { composeInput, estimateComposed, suggestionsFor, type OwnPrices, type PriceBasis } from './compose';
+import { compositionOf, type ReportPerson } from './composition';
 import { paperSizeFor } from './paper';
-
-/** The report's people as it names them. */
-export interface ReportPerson {
-  name: string;
-  firm: string | null;
-  email: string | null;
-  phone: string | null;
-}
 
 function iso(date: Date | null): string | null {
   return date ? date.toISOString() : null;
-}
-
-/** A stored composition, read with today's contract (a draft saved before a field existed gets its default). */
-export function compositionOf(report: Pick<Report, 'composition'>): ReportComposition {
-  const parsed = reportCompositionSchema.safeParse(report.composition ?? {});
-  return parsed.success ? parsed.data : reportCompositionSchema.parse({});
 }
 
 /** Summaries of a lead's reports, each saying whether a later version replaced it. */

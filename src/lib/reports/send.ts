@@ -19,7 +19,8 @@ import type { SessionUser } from '../session';
 import { composableStages, mayCompose, reachReport } from './access';
 import { loadInventory } from './base';
 import { composeInput, compositionIssues, estimateComposed, sendIssues, suggestionsFor } from './compose';
-import { compositionOf, consultantNamed, leadPhotoIds, ownPricesOf, reportView } from './read';
+import { compositionOf } from './composition';
+import { consultantNamed, leadPhotoIds, ownPricesOf, reportView } from './read';
 
 /** POST /api/reports/{id}/send: the draft becomes the next version; a version sent again is answered as it is. */
 export async function sendReport(user: SessionUser, reportId: string | undefined): Promise<{ sentNow: boolean; report: ReportView }> {

@@ -8,7 +8,7 @@ import type { PlantResult } from '../../engine';
 import type { ReportView } from '../../schemas/reports';
 import { unitSystemOf } from '../assessments/questionnaire';
 import type { ReportSource } from './present';
-import { compositionOf, type ReportPerson } from './read';
+import { compositionOf, type ReportPerson } from './composition';
 
 /** A sent version's source, from its frozen columns and the lead's name and units. */
 export function frozenSource(report: Report, lead: LeadRecord['lead'], replacedBy: ReportSource['replacedBy']): ReportSource {
