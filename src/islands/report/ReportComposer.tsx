@@ -274,7 +274,7 @@ export default function ReportComposer({ leadId, reference, draft: initial, late
                 return (
                   <fieldset key={run.id} className="space-y-3 rounded-plate border border-line bg-surface p-4" data-run={run.id}>
                     <legend className="px-1 text-lg font-extrabold">{run.label}</legend>
-                    {shown && <p className="text-sm text-graphite-soft">{shown.line}; today {shown.today.toLowerCase()}, {shown.todayCost}</p>}
+                    {shown && <p className="text-sm text-graphite-soft">{shown.line}. Today: {shown.today}, {shown.todayCost}.</p>}
                     {suggestion && (
                       <p className="text-sm">
                         Engine’s suggestion: <strong>{OPTION_WORDS[suggestion.option]}</strong>
