@@ -104,8 +104,10 @@ describe('the follow-up report, in a browser', () => {
     await water.getByLabel('Thickness (mm)').fill('50');
     await water.getByLabel('Or the whole run, installed (optional)').fill('1450');
     await water.getByLabel('Why you changed the suggestion (the owner reads this)').fill('The wash bay line runs where staff brush past it: 50 mm keeps the jacket cool to the touch.');
+    // Saved on the server after a pause in typing; the live figures come back with the answer.
+    await water.locator('[data-run-figures]').filter({ hasText: '$1,450' }).waitFor();
     await page.locator('[data-save-state="saved"]').waitFor();
-    await expect(water.locator('[data-run-figures]').textContent()).resolves.toContain('$1,450');
+    await expect(water.locator('[data-run-figures]').textContent()).resolves.toMatch(/^Insulate: 50\u00a0mm /);
     expect(await water.locator('[data-run-figures]').textContent()).not.toBe(figuresBefore);
     await accessible(page, 'composer');
     await shot(page, 'report-composer-1280');
