@@ -10,8 +10,15 @@ import { MARKET_IDS } from './data/markets';
 import { LAGGING_CONDITION_IDS } from './data/lagging-condition';
 import { BARE_FINISH_IDS, JACKET_IDS } from './data/surfaces';
 import { HOURS_PER_YEAR } from './physical-constants';
-import { cataloguePipeSchema, explicitPipeSchema, fluidTemperatureSchema, MAX_INSULATION_THICKNESS_M } from './run-input';
-import { formatNumber, oneOf, quantity, text } from './schema-helpers';
+import {
+  cataloguePipeSchema,
+  explicitPipeSchema,
+  fluidTemperatureSchema,
+  MAX_FLUID_TEMPERATURE_C,
+  MAX_INSULATION_THICKNESS_M,
+  MIN_FLUID_TEMPERATURE_C,
+} from './run-input';
+import { formatNumber, oneOf, quantity, text, type RangeIssueParams } from './schema-helpers';
 import { SERVICE_IDS, serviceDefaults } from './services';
 
 const confidence = (label: string) => oneOf(label, ['measured', 'estimated', 'guessed'] as const);
@@ -421,18 +428,32 @@ export const plantInputSchema = z
       }
       const service = serviceDefaults(run.service);
       let lineC = run.fluidTemperatureC ?? service.typicalTemperatureC;
+      // An altitude out of range is refused on its own field; no pressure can be read from it.
+      if (service.kind === 'steam' && !Number.isFinite(atmosphere)) return;
       if (service.kind === 'steam') {
         const absolute = (run.steamGaugePressureKPa ?? (service.typicalGaugePressureKPa as number)) + atmosphere;
         if (absolute < SATURATION_MIN_ABSOLUTE_PRESSURE_KPA || absolute > STEAM_MAX_ABSOLUTE_PRESSURE_KPA) {
+          const low = absolute < SATURATION_MIN_ABSOLUTE_PRESSURE_KPA;
           ctx.addIssue({
             code: 'custom',
             path: ['runs', index, 'steamGaugePressureKPa'],
             message: `Steam pressure must give an absolute pressure between ${formatNumber(SATURATION_MIN_ABSOLUTE_PRESSURE_KPA)} kPa and ${Math.round(STEAM_MAX_ABSOLUTE_PRESSURE_KPA)} kPa; ${formatNumber(absolute)} kPa absolute was given.`,
+            // As a gauge reading at the plant's altitude, the way the field is typed.
+            params: {
+              quantity: 'pressure',
+              limit: low ? 'min' : 'max',
+              limitSI: (low ? SATURATION_MIN_ABSOLUTE_PRESSURE_KPA : STEAM_MAX_ABSOLUTE_PRESSURE_KPA) - atmosphere,
+              givenSI: absolute - atmosphere,
+              exclusive: false,
+              unitSI: 'kPa',
+            } satisfies RangeIssueParams,
           });
           return;
         }
         lineC = saturationTemperatureC(absolute);
       }
+      // A line temperature out of the engine's range is refused on its own field; no material is weighed against it.
+      if (lineC < MIN_FLUID_TEMPERATURE_C || lineC > MAX_FLUID_TEMPERATURE_C) return;
       const proposedId = run.proposed.material ?? service.defaultInsulation;
       const material = findInsulationMaterial(proposedId);
       if (material && (lineC > material.serviceMaxC || lineC < material.serviceMinC)) {

@@ -30,6 +30,7 @@ export function fluidTemperatureSchema(label = 'Fluid temperature') {
         ctx.addIssue({
           code: 'custom',
           message: `${label} cannot be at or below absolute zero (−273.15 °C); ${formatNumber(value)} °C was given.`,
+          params: { quantity: 'temperature', limit: 'min', limitSI: MIN_FLUID_TEMPERATURE_C, givenSI: value, exclusive: false, unitSI: '°C' } satisfies RangeIssueParams,
         });
       } else if (value < MIN_FLUID_TEMPERATURE_C || value > MAX_FLUID_TEMPERATURE_C) {
         const low = value < MIN_FLUID_TEMPERATURE_C;

@@ -69,7 +69,7 @@ describe('the estimate wizard in a browser', () => {
     await next(page, 'Fuel and its price');
 
     found.energy = await seriousViolations(page);
-    await page.getByLabel(/^Price \(/).fill('1.15');
+    await page.getByLabel(/^Fuel price \(/).fill('1.15');
     await next(page, 'Pipe runs');
 
     await page.getByLabel(/^Length/).fill('120');
@@ -153,7 +153,7 @@ describe('the estimate wizard in a browser', () => {
     await page.keyboard.press('Enter');
     await waitForStep(page, 'Fuel and its price');
 
-    await tabTo(labelled('Price ('));
+    await tabTo(labelled('Fuel price ('));
     await page.keyboard.type('1.15');
     await page.keyboard.press('Enter');
     await waitForStep(page, 'Pipe runs');
@@ -208,7 +208,7 @@ describe('the estimate wizard in a browser', () => {
     await page.getByLabel(/^US/).check();
     await fillPlant(page);
     await next(page, 'Fuel and its price');
-    await page.getByLabel(/^Price \(/).fill('1.15');
+    await page.getByLabel(/^Fuel price \(/).fill('1.15');
     await next(page, 'Pipe runs');
 
     const length = page.locator('#f-estimate-runs-0-lengthM');
@@ -244,7 +244,7 @@ describe('the estimate wizard in a browser', () => {
     const { context, page, problems } = await openEstimate(browser);
     await fillPlant(page);
     await next(page, 'Fuel and its price');
-    await page.getByLabel(/^Price \(/).fill('1.15');
+    await page.getByLabel(/^Fuel price \(/).fill('1.15');
     await next(page, 'Pipe runs');
     await page.locator('#f-estimate-runs-0-label').fill('Whey tank coil');
     await page.locator('#f-estimate-runs-0-lengthM').fill('65');
@@ -257,7 +257,7 @@ describe('the estimate wizard in a browser', () => {
 
     await page.getByRole('button', { name: 'Back to energy' }).click();
     await waitForStep(page, 'Fuel and its price');
-    expect(await page.getByLabel(/^Price \(/).inputValue()).toBe('1.15');
+    expect(await page.getByLabel(/^Fuel price \(/).inputValue()).toBe('1.15');
     await page.getByRole('button', { name: 'Back to plant' }).click();
     await waitForStep(page, 'Your plant');
     expect(await page.getByLabel('Plant name').inputValue()).toBe('Hollin Beck Creamery');
@@ -272,7 +272,7 @@ describe('the estimate wizard in a browser', () => {
     const { context, page, problems } = await openEstimate(browser);
     await fillPlant(page);
     await next(page, 'Fuel and its price');
-    await page.getByLabel(/^Price \(/).fill('1.15');
+    await page.getByLabel(/^Fuel price \(/).fill('1.15');
     await next(page, 'Pipe runs');
 
     const picker = page.getByLabel(/^Photos of this run/);

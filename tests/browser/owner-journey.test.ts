@@ -55,7 +55,7 @@ describe('an owner’s whole journey, in a browser', () => {
     await page.getByLabel('Country').selectOption('AU');
     await page.getByLabel('Postal code').fill('3564');
     await next(page, 'Fuel and its price');
-    await page.getByLabel(/^Price \(/).fill('0.09');
+    await page.getByLabel(/^Fuel price \(/).fill('0.09');
     await next(page, 'Pipe runs');
 
     // Three runs: steam, hot water, glycol.

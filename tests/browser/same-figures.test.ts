@@ -56,7 +56,7 @@ describe('the same figures wherever the owner reads them', () => {
     await page.getByLabel('Country').selectOption('AU');
     await page.getByLabel('Postal code').fill('3564');
     await next(page, 'Fuel and its price');
-    await page.getByLabel(/^Price \(/).fill('0.09');
+    await page.getByLabel(/^Fuel price \(/).fill('0.09');
     await next(page, 'Pipe runs');
     await page.locator('#f-estimate-runs-0-label').fill('Steam to the mash tun');
     await page.locator('#f-estimate-runs-0-service').selectOption('steam');

@@ -1,21 +1,11 @@
 /** Step 2: what the boiler burns, what it costs in the person's own unit, and how efficiently. */
 import { useFormContext, useWatch } from 'react-hook-form';
-import { FUELS, type FuelId, type FuelPriceUnit } from '../../engine';
+import { FUELS, type FuelId } from '../../engine';
 import { formatNumber } from '../../lib/presentation/rounding';
+import { PRICE_UNIT_NAMES } from './price-units';
 import { CURRENCIES, defaultPriceUnit, fuelById, type DraftValues } from './draft';
 import { GuessToggle, NumberField, SelectField, useUnitSystem } from './fields';
 
-/** How each price unit reads in a sentence. */
-export const PRICE_UNIT_NAMES: Record<FuelPriceUnit, string> = {
-  therm: 'therm',
-  MMBtu: 'MMBtu',
-  GJ: 'GJ',
-  kWh: 'kWh',
-  m3: 'cubic metre (m³)',
-  gallon: 'US gallon',
-  litre: 'litre',
-  kg: 'kg',
-};
 
 /** Short names of the emission-factor sources for the drop-down; the full citation shows with the results. */
 const SOURCE_NAMES: Record<string, string> = {
@@ -28,10 +18,7 @@ export function EnergyStep() {
   const { setValue, getValues } = useFormContext<DraftValues>();
   const system = useUnitSystem();
   const fuelId = useWatch<DraftValues, 'estimate.energy.fuel'>({ name: 'estimate.energy.fuel' });
-  const currency = useWatch<DraftValues, 'estimate.energy.currency'>({ name: 'estimate.energy.currency' }) ?? 'USD';
-  const priceUnit = useWatch<DraftValues, 'estimate.energy.priceUnit'>({ name: 'estimate.energy.priceUnit' });
   const fuel = fuelById(fuelId) ?? FUELS[0];
-  const unitName = PRICE_UNIT_NAMES[priceUnit ?? fuel.defaultPriceUnit];
   const efficiencyPercent = formatNumber(fuel.defaultBoilerEfficiency * 100);
 
   return (
@@ -72,8 +59,6 @@ export function EnergyStep() {
           <div className="field-with-guess">
             <NumberField
               name="estimate.energy.price"
-              label="Price"
-              unitText={`${currency} per ${unitName}`}
               hint="The bill’s total divided by the quantity, with delivery charges and taxes."
             />
             <GuessToggle name="estimate.energy.priceConfidence" label="The price is a guess" />
@@ -89,8 +74,6 @@ export function EnergyStep() {
       <div className="field-with-guess max-w-xl">
         <NumberField
           name="estimate.energy.boilerEfficiency"
-          label="Boiler efficiency"
-          quantity="fraction"
           optional
           placeholder={efficiencyPercent}
           hint={`Fuel turned into useful heat over a season. Leave it empty and Lagwise uses ${efficiencyPercent} %, usual for ${fuel.name.toLowerCase()}.`}
@@ -101,8 +84,6 @@ export function EnergyStep() {
       {fuel.id !== 'electricity' && (
         <NumberField
           name="estimate.energy.electricityPricePerKWh"
-          label="Electricity price for the chillers"
-          unitText={`${currency} per kWh`}
           optional
           hint="Only for chilled-water and glycol lines: heat they gain from the room is pumped out again by the chillers. Leave it empty and that heat is shown but not priced."
           className="max-w-xl"
@@ -122,12 +103,10 @@ export function EnergyStep() {
         <legend className="group-legend">Money over time</legend>
         <p className="field-hint">For the life-cycle cost and the cash flow of insulating. The defaults suit most plants.</p>
         <div className="field-grid">
-          <NumberField name="estimate.economics.horizonYears" label="Years to count" unitText="years" whole />
-          <NumberField name="estimate.economics.discountRatePercent" label="Discount rate" quantity="percent" />
+          <NumberField name="estimate.economics.horizonYears" whole />
+          <NumberField name="estimate.economics.discountRatePercent" />
           <NumberField
             name="estimate.economics.fuelEscalationPercent"
-            label="Yearly rise in fuel price"
-            quantity="percent"
             signed
           />
         </div>

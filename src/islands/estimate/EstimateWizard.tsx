@@ -4,9 +4,9 @@
  */
 import { lazy, Suspense, useEffect, useRef, useState, type ReactNode } from 'react';
 import { FormProvider, useForm, type FieldErrors, type UseFormReturn } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useStore } from '@nanostores/react';
-import { createAssessmentSchema } from '../../schemas/assessment';
+import { fieldMessage } from '../../lib/field-messages';
+import { fieldContextOf, wordedResolver } from './resolver';
 import {
   $draftValues,
   $estimate,
@@ -107,7 +107,7 @@ function Wizard({ cautions }: Props) {
   const step = useStore($step);
   const submission = useStore($submission);
   const form = useForm({
-    resolver: zodResolver(createAssessmentSchema),
+    resolver: wordedResolver,
     defaultValues: { ...freshValues(), ...$draftValues.get() },
     mode: 'onTouched',
     reValidateMode: 'onChange',
@@ -194,8 +194,11 @@ function Wizard({ cautions }: Props) {
       if (outcome.state !== 'failed') return;
       const { failure } = outcome;
       const fieldIssues = failure.issues.filter((issue) => !issue.path.startsWith('photos') && issue.path !== '(body)');
+      // The server speaks SI; its range facts are said again in the units the person typed in.
+      const context = fieldContextOf(form.getValues());
       for (const issue of fieldIssues) {
-        form.setError(issue.path as Name, { type: 'server', message: issue.message });
+        const message = fieldMessage({ ...issue, typed: form.getValues(issue.path as Name) }, context);
+        form.setError(issue.path as Name, { type: 'server', message });
       }
       for (const issue of failure.issues.filter((i) => i.path.startsWith('photos'))) {
         const runId = issue.path.slice('photos.'.length);

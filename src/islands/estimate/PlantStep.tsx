@@ -46,8 +46,6 @@ export function PlantStep() {
       <div className="field-with-guess">
         <NumberField
           name="estimate.operatingHoursPerYear"
-          label="Running hours"
-          unitText="h a year"
           whole
           hint="Hours a year the lines are hot or cold. One shift five days a week is about 2,000 h; two shifts about 4,000 h; round the clock 8,760 h."
         />
@@ -58,17 +56,13 @@ export function PlantStep() {
         <legend className="group-legend">Air inside the plant</legend>
         <p className="field-hint">Around the pipe runs while they are in use.</p>
         <div className="field-grid">
-          <NumberField name="estimate.conditions.indoorAirTemperatureC" label="Air temperature" quantity="temperature" signed />
+          <NumberField name="estimate.conditions.indoorAirTemperatureC" signed />
           <NumberField
             name="estimate.conditions.indoorRelativeHumidityPercent"
-            label="Relative humidity"
-            quantity="percent"
             hint="Sets the dew point that cold lines must stay above."
           />
           <NumberField
             name="estimate.conditions.draughtyAirSpeedMPerS"
-            label="Air speed in draughty spots"
-            quantity="speed"
             hint="Near doors and fans; used for runs you mark as draughty."
           />
         </div>
@@ -80,19 +74,15 @@ export function PlantStep() {
         <div className="field-grid">
           <NumberField
             name="estimate.conditions.outdoorAirTemperatureC"
-            label="Average air temperature while running"
-            quantity="temperature"
             signed
           />
-          <NumberField name="estimate.conditions.outdoorRelativeHumidityPercent" label="Relative humidity" quantity="percent" />
-          <NumberField name="estimate.conditions.outdoorWindSpeedMPerS" label="Typical wind speed" quantity="speed" />
+          <NumberField name="estimate.conditions.outdoorRelativeHumidityPercent" />
+          <NumberField name="estimate.conditions.outdoorWindSpeedMPerS" />
         </div>
       </fieldset>
 
       <NumberField
         name="estimate.conditions.altitudeM"
-        label="Altitude above sea level"
-        quantity="altitude"
         signed
         optional
         hint="Thinner air lowers the boiling point of steam a little."

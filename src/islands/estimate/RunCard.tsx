@@ -203,23 +203,19 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
 
       <div className="field-grid">
         <div className="field-with-guess">
-          <NumberField name={`${base}.lengthM`} label="Length" quantity="length" hint="End to end, bends included." />
+          <NumberField name={`${base}.lengthM`} hint="End to end, bends included." />
           <GuessToggle name={`${base}.lengthConfidence`} label="The length is a guess" />
         </div>
         {service.kind === 'steam' ? (
           <NumberField
             key="steam"
             name={`${base}.steamGaugePressureKPa`}
-            label="Steam pressure on the gauge"
-            quantity="gaugePressure"
             hint={`Usual for process steam: ${typical(service.typicalGaugePressureKPa ?? 0, 'gaugePressure', system)}.`}
           />
         ) : (
           <NumberField
             key="liquid"
             name={`${base}.fluidTemperatureC`}
-            label={cold ? 'Temperature of the cold line' : 'Temperature of the liquid'}
-            quantity="temperature"
             signed
             hint={`Usual for ${service.name.toLowerCase()}: ${typical(service.typicalTemperatureC, 'temperature', system)}.`}
           />
@@ -239,8 +235,6 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
       {ambient === 'outdoor' && (
         <NumberField
           name={`${base}.ambient.windSpeedMPerS`}
-          label="Wind speed at this run"
-          quantity="speed"
           optional
           hint="Leave it empty to use the plant’s typical wind speed."
           className="max-w-sm"
@@ -266,15 +260,13 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
               <div className="field-with-guess">
                 <NumberField
                   name={`${base}.current.bareFraction`}
-                  label="Share of the run left bare"
-                  quantity="fraction"
                   hint="0 to 100 %: a run with half its lagging missing is 50 %."
                 />
                 <GuessToggle name={`${base}.current.bareFractionConfidence`} label="The share is a guess" />
               </div>
             )}
             <SelectField name={`${base}.current.material`} label="Insulation on it" options={insulationOptions} />
-            <NumberField name={`${base}.current.thicknessM`} label="Its thickness" quantity="thickness" />
+            <NumberField name={`${base}.current.thicknessM`} />
             <SelectField name={`${base}.current.jacket`} label="Its outer covering" options={jacketOptions} />
             <CheckField name={`${base}.fittingsInsulated`} label="Its valves and flanges are insulated too" />
           </div>
@@ -289,8 +281,8 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
       <fieldset className="group">
         <legend className="group-legend">Valves and flanges on the run</legend>
         <div className="field-grid">
-          <NumberField name={`${base}.valves`} label="Valves" whole hint="Each valve body with its bonnet." />
-          <NumberField name={`${base}.flangePairs`} label="Flange pairs" whole hint="A bolted joint counts as one pair." />
+          <NumberField name={`${base}.valves`} whole hint="Each valve body with its bonnet." />
+          <NumberField name={`${base}.flangePairs`} whole hint="A bolted joint counts as one pair." />
         </div>
       </fieldset>
 
@@ -312,8 +304,6 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
           />
           <NumberField
             name={`${base}.proposed.thicknessM`}
-            label="Thickness"
-            quantity="thickness"
             optional
             hint="Leave it empty and Lagwise picks the economic thickness."
           />

@@ -16,10 +16,11 @@ import {
   displayUnit,
   formatForInput,
   parseTyped,
-  type DisplayQuantity,
   type UnitSystem,
 } from '../../lib/units-display';
+import { formFieldAt, type FormField } from '../../lib/form-fields';
 import type { DraftValues } from './draft';
+import { fieldContextFrom } from './resolver';
 
 export type Name = FieldPath<DraftValues>;
 
@@ -112,12 +113,8 @@ function FieldFrame({ id, label, hint, error, optional, children, className }: F
 }
 
 interface NumberFieldProps {
+  /** One of the form's number fields (src/lib/form-fields.ts), which gives its label and unit. */
   name: Name;
-  label: string;
-  /** A physical quantity: shown in the unit of the current system, stored in SI. */
-  quantity?: DisplayQuantity;
-  /** Unit text for values that do not convert (hours a year, a price, a count). */
-  unitText?: string;
   hint?: ReactNode;
   optional?: boolean;
   placeholder?: string;
@@ -128,17 +125,24 @@ interface NumberFieldProps {
   className?: string;
 }
 
-/**
- * A number typed in the person's unit and stored in SI at full precision. While the person
- * types, their own text stays in the box; on leaving it (or on a unit switch) the box shows
- * the stored value in the current unit, so a switch back and forth never drifts.
- */
-export function NumberField({ name, label, quantity, unitText, hint, optional, placeholder, signed, whole, className }: NumberFieldProps) {
-  const system = useUnitSystem();
+/** The form's number field at a path; a path the table does not list is a mistake in the form. */
+function numberFieldAt(name: string): FormField {
+  const field = formFieldAt(name);
+  if (!field) throw new Error(`${name} is not one of the form's number fields (src/lib/form-fields.ts).`);
+  return field;
+}
+
+export function NumberField({ name, hint, optional, placeholder, signed, whole, className }: NumberFieldProps) {
+  const { label, quantity, unitText } = numberFieldAt(name);
+  const [systemValue, currency, priceUnit, fuel] = useWatch<DraftValues>({
+    name: ['estimate.unitSystem', 'estimate.energy.currency', 'estimate.energy.priceUnit', 'estimate.energy.fuel'],
+  });
   const { field, fieldState } = useController<DraftValues>({ name });
   const [typing, setTyping] = useState<string | null>(null);
+  const context = fieldContextFrom(systemValue, currency, priceUnit, fuel);
+  const system = context.system;
   const unit = quantity ? displayUnit(quantity, system) : undefined;
-  const symbol = unit?.symbol ?? unitText;
+  const symbol = unit?.symbol ?? (unitText?.(context) || undefined);
   const id = fieldId(name);
   const error = fieldState.error?.message;
   const shown = typing ?? (quantity ? formatForInput(field.value, quantity, system) : field.value === undefined || field.value === null ? '' : String(field.value));
