@@ -6,9 +6,10 @@
 import type { PlantInput } from '../engine';
 import type { ApiIssue } from '../schemas/api-error';
 import type { SubmitAssessmentAnswer, SubmittedAssessment } from '../schemas/assessment-answer';
+import type { CoverageAnswer } from '../schemas/coverage';
 import type { EstimateAnswer } from '../schemas/estimate';
 
-export type { ApiIssue, EstimateAnswer, SubmitAssessmentAnswer, SubmittedAssessment };
+export type { ApiIssue, CoverageAnswer, EstimateAnswer, SubmitAssessmentAnswer, SubmittedAssessment };
 
 export interface ApiSuccess<T> {
   readonly ok: true;
@@ -132,3 +133,13 @@ export function submitAssessment(form: FormData, idempotencyKey: string): Promis
   );
 }
 
+
+/** Whether a consultant covers the plant's postal code (asked at the plant step). */
+export function requestCoverage(countryCode: string, postalCode: string, signal?: AbortSignal): Promise<ApiResult<CoverageAnswer>> {
+  const query = new URLSearchParams({ country: countryCode, postalCode });
+  return send(
+    `/api/coverage?${query}`,
+    { method: 'GET', headers: { accept: 'application/json' }, ...(signal ? { signal } : {}) },
+    () => answers().then((m) => m.coverageAnswerSchema),
+  );
+}

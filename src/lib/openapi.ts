@@ -8,6 +8,7 @@ import { createAssessmentSchema } from '../schemas/assessment';
 import { submitAssessmentAnswerSchema } from '../schemas/assessment-answer';
 import { apiErrorSchema } from '../schemas/api-error';
 import { estimateAnswerSchema, plantResultSchema } from '../schemas/estimate';
+import { coverageAnswerSchema } from '../schemas/coverage';
 import { healthAnswerSchema } from '../schemas/health';
 import { ENGINE_VERSION, plantInputSchema } from '../engine';
 import { adminPaths, adminSchemas } from './openapi-admin';
@@ -29,6 +30,7 @@ function answerSchemas(): Record<string, unknown> {
   answers.add(plantResultSchema, { id: 'PlantResult' });
   answers.add(submitAssessmentAnswerSchema, { id: 'AssessmentSubmitted' });
   answers.add(healthAnswerSchema, { id: 'Health' });
+  answers.add(coverageAnswerSchema, { id: 'Coverage' });
   const { schemas } = z.toJSONSchema(answers, { io: 'output', target: 'draft-2020-12', uri: (id) => `#/components/schemas/${id}` });
   // Each component sits inside the document: its own $schema and fragment $id would only confuse readers.
   return Object.fromEntries(Object.entries(schemas).map(([id, { $schema: _schema, $id: _id, ...schema }]) => [id, schema]));
@@ -60,6 +62,21 @@ export function openApiDocument() {
           responses: {
             '200': { description: 'Up; the database answers.', content: { 'application/json': { schema: ref('Health') } } },
             '503': { description: 'The database does not answer; the body says why.', content: { 'application/json': { schema: ref('Health') } } },
+          },
+        },
+      },
+      '/api/coverage': {
+        get: {
+          summary: 'Whether a consultant covers a postal code',
+          description: 'Asked before an assessment is sent. Nothing is stored; the number of asks per address is limited.',
+          parameters: [
+            { name: 'country', in: 'query', required: true, description: 'The plant’s country, a two-letter code (US, CA, GB …).', schema: { type: 'string', minLength: 2, maxLength: 2 } },
+            { name: 'postalCode', in: 'query', required: true, description: 'The plant’s postal code as typed.', schema: { type: 'string', minLength: 1, maxLength: 16 } },
+          ],
+          responses: {
+            '200': { description: 'Covered or not, and by which region.', content: { 'application/json': { schema: ref('Coverage') } } },
+            '400': errorResponse('The country is not one we serve, or the code is not a postal code of that country.'),
+            '429': errorResponse('Too many codes asked about from this address in the last minute.'),
           },
         },
       },

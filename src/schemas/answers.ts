@@ -4,4 +4,5 @@
  */
 export { apiErrorSchema } from './api-error';
 export { submitAssessmentAnswerSchema } from './assessment-answer';
+export { coverageAnswerSchema } from './coverage';
 export { estimateAnswerSchema } from './estimate';

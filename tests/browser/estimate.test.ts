@@ -2,6 +2,8 @@ import AxeBuilder from '@axe-core/playwright';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser, watchForErrors } from '../support/browser';
+import { closeDb } from '../../src/db/client';
+import { ensureTestRegion } from '../support/fixtures';
 import { stack } from '../support/stack';
 
 /** A fresh browser context: its own localStorage, so no test sees another's draft. */
@@ -54,6 +56,7 @@ describe('the estimate wizard in a browser', () => {
   });
   afterAll(async () => {
     await browser?.close();
+    await closeDb();
   });
 
   // One test per width, so a slow machine never has to fit both sweeps in one test's time.
@@ -199,6 +202,23 @@ describe('the estimate wizard in a browser', () => {
     expect(await rows.nth(1).textContent()).toContain('Kettle drop');
     expect(await page.locator('.figure-heat .figure-value').first().textContent()).toMatch(/^\$[\d,]+$/);
     expect(await page.evaluate(() => (window as unknown as { pointerPresses: number }).pointerPresses)).toBe(0);
+    expect(problems).toEqual([]);
+    await context.close();
+  });
+
+  it('says at the plant step whether a consultant covers the postal code, and still lets the owner go on when none does', async () => {
+    await ensureTestRegion();
+    const { context, page, problems } = await openEstimate(browser);
+    await page.getByLabel('What the plant makes').selectOption('creamery');
+    await page.getByLabel('Country').selectOption('AU');
+    await page.getByLabel('Postal code').fill('3564');
+    const notice = page.locator('.coverage-notice');
+    await page.locator('.coverage-notice[data-coverage="covered"]').waitFor();
+    expect(await notice.textContent()).toBe('A consultant covers Wattle Valley: once you send, they can follow up on your plant.');
+    await page.getByLabel('Postal code').fill('0870');
+    await page.locator('.coverage-notice[data-coverage="not-covered"]').waitFor();
+    expect(await notice.textContent()).toContain('No consultant covers postal code 0870 yet.');
+    await next(page, 'Fuel and its price');
     expect(problems).toEqual([]);
     await context.close();
   });

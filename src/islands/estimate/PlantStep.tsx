@@ -2,6 +2,7 @@
 import { useFormContext, useWatch } from 'react-hook-form';
 import { countryOptions, plantTypes } from '../../schemas/assessment';
 import { isCountryCode, postalFormats } from '../../lib/routing/postal-code';
+import { CoverageNotice } from './CoverageNotice';
 import { currencyOfCountry, type DraftValues } from './draft';
 import { GuessToggle, NumberField, SelectField, TextField } from './fields';
 
@@ -42,6 +43,7 @@ export function PlantStep() {
           inputClassName="max-w-48"
         />
       </div>
+      <CoverageNotice />
 
       <div className="field-with-guess">
         <NumberField
