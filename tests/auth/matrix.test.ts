@@ -88,6 +88,7 @@ const rows: Row[] = [
   { method: 'GET', route: '/admin', path: () => '/admin', expect: { ...deskPage(), consultantIn: 403, consultantOut: 403 } },
   { method: 'GET', route: '/api/health', path: () => '/api/health', expect: all(200) },
   { method: 'ALL', route: '/api/auth/[...all]', path: () => '/api/auth/ok', expect: all(200) },
+  { method: 'GET', route: '/api/coverage', path: () => '/api/coverage?country=ZZ&postalCode=1', expect: all(400) },
   { method: 'POST', route: '/api/estimate', path: () => '/api/estimate', body: { json: {} }, expect: all(400) },
   { method: 'POST', route: '/api/assessments', path: () => '/api/assessments', body: { json: {} }, expect: all(400) },
   { method: 'POST', route: '/api/sign-in/link', path: () => '/api/sign-in/link', body: { form: {} }, expect: all(303) },

@@ -35,7 +35,6 @@ import { StepList } from './StepList';
 import { UnitSwitch } from './UnitSwitch';
 import { PlantStep } from './PlantStep';
 import { EnergyStep } from './EnergyStep';
-import { RunsStep } from './RunsStep';
 import { ContactStep } from './ContactStep';
 import { Confirmation } from './Confirmation';
 import { ResultAnnouncer, SummaryStrip } from './SummaryStrip';
@@ -45,6 +44,9 @@ import { errorMessageAt, inPageOrder, type Name } from './fields';
 /** The results view is the largest step; it loads once the runs step opens, before anyone needs it. */
 const loadResultsStep = () => import('./ResultsStep');
 const ResultsStep = lazy(() => loadResultsStep().then((module) => ({ default: module.ResultsStep })));
+/** The runs step (the form's largest part) loads while the person answers the plant step. */
+const loadRunsStep = () => import('./RunsStep');
+const RunsStep = lazy(() => loadRunsStep().then((module) => ({ default: module.RunsStep })));
 
 interface Props {
   /** The site's cautions (rendered by the page), shown with the results. */
@@ -148,6 +150,7 @@ function Wizard({ cautions }: Props) {
 
   useEffect(() => {
     if (STEPS_WITH_LIVE_RESULTS.includes(step)) void loadResultsStep();
+    else void loadRunsStep();
   }, [step]);
 
   function moveTo(target: StepId) {
@@ -257,7 +260,11 @@ function Wizard({ cautions }: Props) {
 
           {step === 'plant' && <PlantStep />}
           {step === 'energy' && <EnergyStep />}
-          {step === 'runs' && <RunsStep />}
+          {step === 'runs' && (
+            <Suspense fallback={<p className="summary-status">Opening the pipe runs…</p>}>
+              <RunsStep />
+            </Suspense>
+          )}
           {step === 'results' && (
             <Suspense fallback={<p className="summary-status">Opening the results…</p>}>
               <ResultsStep live={live} cautions={cautions} />
