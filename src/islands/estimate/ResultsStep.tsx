@@ -5,7 +5,7 @@
  */
 import { useMemo, useState, type ReactNode } from 'react';
 import type { PlantResult } from '../../engine';
-import { presentResult, type PresentedFigure, type PresentedResult } from '../../lib/presentation';
+import { presentResult, type PresentedFigure, type PresentedResult, type PresentedRun } from '../../lib/presentation';
 import type { LiveEstimate } from './store';
 import { liveStatus } from './SummaryStrip';
 import { useUnitSystem } from './fields';
@@ -71,6 +71,7 @@ export function ResultsStep({ live, cautions }: Props) {
       <Savings presented={presented} />
       <Hazards presented={presented} />
       <RunTable presented={presented} />
+      <RunCards presented={presented} />
       <Charts result={result} presented={presented} />
       <Notes presented={presented} />
       {cautions && <div className="results-cautions">{cautions}</div>}
@@ -149,9 +150,86 @@ function Hazards({ presented }: { presented: PresentedResult }) {
   );
 }
 
+/** Each run's flags, as a short list. */
+function Flags({ run }: { run: PresentedRun }) {
+  if (run.hazards.length === 0) return <>None</>;
+  return (
+    <ul className="flag-list">
+      {run.hazards.map((h) => (
+        <li key={h.code} className={`flag flag-${h.tone}`}>
+          {h.flag}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+/**
+ * On a phone each run is a card with the figures that matter, in reading order; the wide
+ * table below stands in for it from a laptop's width up (one of the two is shown).
+ */
+function RunCards({ presented }: { presented: PresentedResult }) {
+  return (
+    <section aria-labelledby="run-cards-heading" className="result-block run-cards-block">
+      <h3 id="run-cards-heading" className="block-title">
+        Run by run
+      </h3>
+      <ol className="run-cards">
+        {presented.runs.map((run) => (
+          <li key={run.id} className={`run-result ${run.cold ? 'run-result-cold' : 'run-result-hot'}`} data-run={run.id}>
+            <p className="run-result-name">{run.label}</p>
+            <p className="run-result-what">
+              {run.service}
+              {run.cold ? ' · cold line' : ''} · {run.length} · {run.state.toLowerCase()}
+            </p>
+            <dl className="run-result-figures">
+              <div>
+                <dt>{run.today.heatLabel} now</dt>
+                <dd>
+                  {run.today.heatPerLength}
+                  <span className="run-result-sub">{run.today.cost} a year</span>
+                </dd>
+              </div>
+              <div>
+                <dt>Surface now</dt>
+                <dd>{run.today.surface}</dd>
+              </div>
+              <div className="run-result-wide">
+                <dt>What to do</dt>
+                <dd>
+                  {run.proposed.summary}
+                  <span className="run-result-sub">{run.choice.reason}</span>
+                </dd>
+              </div>
+              <div>
+                <dt>Saves a year</dt>
+                <dd className="run-result-save">{run.saving}</dd>
+              </div>
+              <div>
+                <dt>Payback</dt>
+                <dd>{run.payback}</dd>
+              </div>
+              <div>
+                <dt>Installed cost</dt>
+                <dd>{run.installedCost}</dd>
+              </div>
+              <div>
+                <dt>Hazards</dt>
+                <dd>
+                  <Flags run={run} />
+                </dd>
+              </div>
+            </dl>
+          </li>
+        ))}
+      </ol>
+    </section>
+  );
+}
+
 function RunTable({ presented }: { presented: PresentedResult }) {
   return (
-    <section aria-labelledby="runs-table-heading" className="result-block">
+    <section aria-labelledby="runs-table-heading" className="result-block run-table-block">
       <h3 id="runs-table-heading" className="block-title">
         Run by run
       </h3>
@@ -191,17 +269,7 @@ function RunTable({ presented }: { presented: PresentedResult }) {
                 </td>
                 <td>{run.today.surface}</td>
                 <td>
-                  {run.hazards.length === 0 ? (
-                    'None'
-                  ) : (
-                    <ul className="flag-list">
-                      {run.hazards.map((h) => (
-                        <li key={h.code} className={`flag flag-${h.tone}`}>
-                          {h.flag}
-                        </li>
-                      ))}
-                    </ul>
-                  )}
+                  <Flags run={run} />
                 </td>
                 <td>
                   <span className="block">{run.proposed.summary}</span>

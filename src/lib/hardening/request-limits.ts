@@ -14,6 +14,8 @@ export interface RequestLimit {
   /** The counter's name (routes may share one). */
   bucket: string;
   perMinute: number;
+  /** A public read counted too (by default only writes are). */
+  reads?: boolean;
 }
 
 /** Per client address, per minute. A person at a form never comes near these. */
@@ -22,6 +24,8 @@ export const REQUEST_LIMITS: readonly RequestLimit[] = [
   { pattern: /^\/api\/estimate\/?$/, bucket: 'estimate', perMinute: 240 },
   { pattern: /^\/api\/assessments\/?$/, bucket: 'submit', perMinute: 30 },
   { pattern: /^\/api\/sign-in\//, bucket: 'sign-in', perMinute: 60 },
+  // Coverage is asked once typing pauses at the plant step; a list of codes walked through is refused.
+  { pattern: /^\/api\/coverage\/?$/, bucket: 'coverage', perMinute: 60, reads: true },
 ];
 
 export const DEFAULT_WRITES_PER_MINUTE = 120;
@@ -35,8 +39,9 @@ function multiplier(): number {
 }
 
 export function limitFor(method: string, pathname: string): { bucket: string; perMinute: number } | undefined {
-  if (!WRITE_METHODS.has(method) || !pathname.startsWith('/api/')) return undefined;
+  if (!pathname.startsWith('/api/')) return undefined;
   const named = REQUEST_LIMITS.find((limit) => limit.pattern.test(pathname));
+  if (!WRITE_METHODS.has(method) && !(named?.reads && method === 'GET')) return undefined;
   return named ? { bucket: named.bucket, perMinute: named.perMinute } : { bucket: 'write', perMinute: DEFAULT_WRITES_PER_MINUTE };
 }
 

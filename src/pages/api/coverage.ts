@@ -5,7 +5,7 @@ import { coverageAnswerSchema, coverageQuerySchema } from '../../schemas/coverag
 export const prerender = false;
 
 /** Whether a consultant covers a postal code: public, nothing stored but a per-address count. */
-export const GET = endpoint(async ({ url, clientAddress }) => {
+export const GET = endpoint(async ({ url }) => {
   const query = parseValue(coverageQuerySchema, Object.fromEntries(url.searchParams));
-  return answer(coverageAnswerSchema, await checkCoverage(query, clientAddress));
+  return answer(coverageAnswerSchema, await checkCoverage(query));
 });
