@@ -118,6 +118,22 @@ export function formatForInput(value: unknown, quantity: DisplayQuantity, system
 }
 
 /**
+ * A stored value converted into a unit it was not typed in: three significant figures (no
+ * fewer than the whole number), at most the unit's input decimals — 131 ft reads 39.9 m,
+ * 25 mm reads 0.984 in, 600 kPa reads 87 psig. The stored value keeps full precision, so
+ * switching back shows what was typed.
+ */
+export function formatConverted(value: unknown, quantity: DisplayQuantity, system: UnitSystem): string {
+  if (typeof value !== 'number' || !Number.isFinite(value)) return formatForInput(value, quantity, system);
+  const unit = displayUnit(quantity, system);
+  const shown = unit.fromBase(value);
+  const magnitude = shown === 0 ? 0 : Math.floor(Math.log10(Math.abs(shown)));
+  const decimals = quantity === 'temperature' ? unit.inputDecimals : Math.min(unit.inputDecimals, Math.max(0, 2 - magnitude));
+  const rounded = Number(shown.toFixed(decimals));
+  return String(Object.is(rounded, -0) ? 0 : rounded);
+}
+
+/**
  * What a person typed, as a number in that unit: undefined when empty, the text itself when
  * it is not a number (so the schema can say what was given). A comma is read as a decimal
  * point when there is no point, as many keyboards outside the US type it.

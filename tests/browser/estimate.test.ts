@@ -223,7 +223,7 @@ describe('the estimate wizard in a browser', () => {
     await context.close();
   });
 
-  it('keeps a length through unit switches: 250 ft reads 76.2 m in SI and 250 ft again in US', async () => {
+  it('keeps a length through unit switches (131 ft reads 39.9 m in SI and 131 ft again in US); the catalogue stays the plant’s', async () => {
     const { context, page, problems } = await openEstimate(browser);
     await page.getByLabel(/^US/).check();
     await fillPlant(page);
@@ -232,24 +232,34 @@ describe('the estimate wizard in a browser', () => {
     await next(page, 'Pipe runs');
 
     const length = page.locator('#f-estimate-runs-0-lengthM');
-    await length.fill('250');
+    await length.fill('131');
     await length.blur();
     expect(await page.locator('label[for="f-estimate-runs-0-lengthM"]').textContent()).toBe('Length (ft)');
 
     await page.getByLabel(/^SI/).check();
     expect(await page.locator('label[for="f-estimate-runs-0-lengthM"]').textContent()).toBe('Length (m)');
-    expect(await length.inputValue()).toBe('76.2');
+    expect(await length.inputValue()).toBe('39.9');
 
     await page.getByLabel(/^US/).check();
-    expect(await length.inputValue()).toBe('250');
+    expect(await length.inputValue()).toBe('131');
 
     // A length that is not a round number of metres comes back exactly as typed.
-    await length.fill('33.3');
+    await length.fill('33.35');
     await length.blur();
     await page.getByLabel(/^SI/).check();
-    expect(await length.inputValue()).toBe('10.15');
+    expect(await length.inputValue()).toBe('10.2');
     await page.getByLabel(/^US/).check();
-    expect(await length.inputValue()).toBe('33.3');
+    expect(await length.inputValue()).toBe('33.35');
+
+    // In SI a run added to this US plant is still NPS steel pipe; after a change of standard the wall is the usual one.
+    await page.getByLabel(/^SI/).check();
+    await page.getByRole('button', { name: 'Add a run' }).click();
+    expect(await page.locator('#f-estimate-runs-1-pipe-standard').inputValue()).toBe('ASME-B36.10M');
+    await page.locator('#f-estimate-runs-1-pipe-standard').selectOption('ASTM-B88-L');
+    await page.locator('#f-estimate-runs-1-pipe-standard').selectOption('ASME-B36.10M');
+    expect(await page.locator('#f-estimate-runs-1-pipe-schedule').inputValue()).toBe('40');
+    expect(await page.locator('#f-estimate-runs-1-pipe-schedule option:checked').textContent()).toMatch(/^Schedule 40/);
+    await page.getByLabel(/^US/).check();
 
     // The plant step shows the same switch, with the same choice.
     await page.getByRole('button', { name: /^Back to/ }).click();

@@ -3,7 +3,7 @@ import { useFormContext, useWatch } from 'react-hook-form';
 import { FUELS, type FuelId } from '../../engine';
 import { formatNumber } from '../../lib/presentation/rounding';
 import { PRICE_UNIT_NAMES } from './price-units';
-import { CURRENCIES, defaultPriceUnit, fuelById, type DraftValues } from './draft';
+import { CURRENCIES, defaultPriceUnit, draftMarket, fuelById, type DraftValues } from './draft';
 import { GuessToggle, NumberField, SelectField, useUnitSystem } from './fields';
 
 
@@ -38,7 +38,7 @@ export function EnergyStep() {
             if (!chosen) return;
             const unit = getValues('estimate.energy.priceUnit');
             if (!unit || !(chosen.priceUnits as readonly string[]).includes(unit)) {
-              setValue('estimate.energy.priceUnit', defaultPriceUnit(chosen.id as FuelId, system), { shouldDirty: true });
+              setValue('estimate.energy.priceUnit', defaultPriceUnit(chosen.id as FuelId, draftMarket(getValues('plant.countryCode'), system)), { shouldDirty: true });
             }
             const source = getValues('estimate.energy.emissionFactorSource');
             if (source && !chosen.emissionFactors.some((f) => f.source === source)) {

@@ -3,11 +3,11 @@ import { useFormContext, useWatch } from 'react-hook-form';
 import { countryOptions, plantTypes } from '../../schemas/assessment';
 import { isCountryCode, postalFormats } from '../../lib/routing/postal-code';
 import { CoverageNotice } from './CoverageNotice';
-import { currencyOfCountry, type DraftValues } from './draft';
+import { currencyOfCountry, draftMarket, settleMarket, type DraftValues } from './draft';
 import { GuessToggle, NumberField, SelectField, TextField } from './fields';
 
 export function PlantStep() {
-  const { setValue } = useFormContext<DraftValues>();
+  const { setValue, getValues } = useFormContext<DraftValues>();
   const country = useWatch<DraftValues, 'plant.countryCode'>({ name: 'plant.countryCode' });
   const example = country && isCountryCode(country) ? postalFormats[country].example : undefined;
   return (
@@ -33,6 +33,10 @@ export function PlantStep() {
           onChosen={(code) => {
             const currency = currencyOfCountry(code);
             if (currency) setValue('estimate.energy.currency', currency, { shouldDirty: true });
+            // The country decides the catalogues: starting values follow it, chosen ones stay.
+            const settled = settleMarket(getValues(), draftMarket(code, getValues('estimate.unitSystem') === 'US' ? 'US' : 'SI'));
+            if (settled.priceUnit) setValue('estimate.energy.priceUnit', settled.priceUnit, { shouldDirty: true });
+            for (const { index, pipe } of settled.runPipes) setValue(`estimate.runs.${index}.pipe`, pipe, { shouldDirty: true });
           }}
         />
         <TextField

@@ -13,7 +13,7 @@ import {
 } from '../../engine';
 import { formatQuantity, formatTemperature } from '../../lib/presentation/rounding';
 import { displayUnit, formatForInput, type DisplayQuantity, type UnitSystem } from '../../lib/units-display';
-import { existingInsulationDefaults, pipeStandard, serviceCondition, type DraftValues } from './draft';
+import { draftMarket, existingInsulationDefaults, pipeStandard, serviceCondition, type DraftValues } from './draft';
 import { ChoiceField, CheckField, GuessToggle, NumberField, SelectField, TextField, useHasErrorUnder, useUnitSystem, type Option } from './fields';
 import { PhotoPicker } from './PhotoPicker';
 
@@ -64,6 +64,13 @@ function scheduleLabel(standard: PipeStandard, key: string, wallM: number, syste
 /** A typical value written exactly as the input would show it, so hint and box agree. */
 function typical(value: number, quantity: DisplayQuantity, system: UnitSystem): string {
   return `${formatForInput(value, quantity, system)} ${displayUnit(quantity, system).symbol}`;
+}
+
+/** What the usual wall is, said for the standard chosen (it is what a change of standard sets). */
+function scheduleHint(standard: PipeStandard, entry: PipeSizeEntry | undefined): string | undefined {
+  if (!entry || standard.id === 'EN-10220') return undefined;
+  if (standard.id.startsWith('ASTM-B88')) return 'Type L is the usual copper tube for hot and cold water.';
+  return `Schedule ${entry.defaultSchedule} is the usual wall for ${standard.id === 'ASME-B36.19M' ? 'stainless lines' : 'steam and water lines'}.`;
 }
 
 function closestSize(standard: PipeStandard, nominalInch: number | undefined): PipeSizeEntry | undefined {
@@ -124,7 +131,7 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
   function chooseState(next: string) {
     if (next === 'bare') return;
     const current = getValues(`${base}.current`);
-    const defaults = existingInsulationDefaults(service.id, system);
+    const defaults = existingInsulationDefaults(service.id, draftMarket(getValues('plant.countryCode'), system));
     const has = (key: 'material' | 'thicknessM' | 'jacket') =>
       current && current.state !== 'bare' && (current as Record<string, unknown>)[key] !== undefined;
     if (!has('material')) setValue(`${base}.current.material`, defaults.material, dirty);
@@ -190,7 +197,7 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
               name={`${base}.pipe.schedule`}
               label={standard.id === 'EN-10220' ? 'Wall thickness' : 'Schedule'}
               options={schedules.map(([key, wall]) => ({ value: key, label: scheduleLabel(standard, key, wall, system) }))}
-              hint={standard.id === 'EN-10220' ? undefined : 'Schedule 40 is the usual wall for steam and water lines.'}
+              hint={scheduleHint(standard, entry)}
             />
           )}
           <SelectField

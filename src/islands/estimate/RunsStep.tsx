@@ -4,7 +4,7 @@
  */
 import { useEffect, useRef, useState } from 'react';
 import { useFieldArray, useFormContext } from 'react-hook-form';
-import { duplicateRun, newRun, type DraftRun, type DraftValues } from './draft';
+import { draftMarket, duplicateRun, newRun, type DraftRun, type DraftValues } from './draft';
 import { dropRunPhotos, photosOfRun, setRunPhotos } from './store';
 import { RunCard } from './RunCard';
 import { useFieldError, useUnitSystem } from './fields';
@@ -38,7 +38,7 @@ export function RunsStep() {
   function add() {
     const index = fields.length;
     setRemoved(null);
-    append(newRun(system, index + 1), { focusName: `estimate.runs.${index}.label` });
+    append(newRun(draftMarket(getValues('plant.countryCode'), system), index + 1), { focusName: `estimate.runs.${index}.label` });
   }
 
   function duplicate(index: number) {

@@ -1,6 +1,6 @@
 /**
- * US customary ⇄ SI. Only the display changes: values stay in SI at full precision, and
- * the engine's unit system (which picks the stock thickness series) follows the switch.
+ * US customary ⇄ SI. Only the display changes: values stay in SI at full precision, and the
+ * plant's country (its market) keeps deciding catalogues, stock series and so every money figure.
  */
 import { useFormContext } from 'react-hook-form';
 import type { DraftValues } from './draft';

@@ -6,11 +6,14 @@
 import {
   FUELS,
   PIPE_STANDARDS,
+  MARKETS,
+  MARKET_IDS,
   marketForCountry,
   plantInputSchema,
   serviceDefaults,
   type FuelId,
   type FuelPriceUnit,
+  type MarketId,
   type PipeStandardId,
   type PlantInput,
   type PlantRunInput,
@@ -71,15 +74,28 @@ export const PLANT_DEFAULTS = {
   currency: plantInputSchema.shape.energy.shape.currency.parse(undefined),
 };
 
+function findMarket(id: MarketId) {
+  return MARKETS.find((m) => m.id === id) ?? MARKETS[0];
+}
+
 /**
- * What a damaged or insulated run starts with in the form: the service's usual material, a
- * 1-inch or 25 mm stock thickness, and the engine's default covering for existing lagging.
+ * The market a draft's catalogues and stock series follow: the plant's country. Before a
+ * country is chosen, the likeliest from the display units (a first guess the country then
+ * settles); switching units later never changes it.
  */
-export function existingInsulationDefaults(service: ServiceId, system: UnitSystem) {
+export function draftMarket(countryCode: string | undefined, system: UnitSystem): MarketId {
+  return countryCode ? marketForCountry(countryCode) : system === 'US' ? 'US' : 'EU';
+}
+
+/**
+ * What a damaged or insulated run starts with in the form: the service's usual material, the
+ * market's 1-inch or 25 mm stock thickness, and the engine's default covering for existing lagging.
+ */
+export function existingInsulationDefaults(service: ServiceId, market: MarketId) {
   const parsed = runSchema.shape.current.parse({ state: 'damaged', bareFraction: 0.5 });
   return {
     material: serviceDefaults(service).defaultInsulation,
-    thicknessM: system === 'US' ? 0.0254 : 0.025,
+    thicknessM: findMarket(market).stockSeries === 'inch' ? 0.0254 : 0.025,
     jacket: parsed.state === 'damaged' ? parsed.jacket : serviceDefaults(service).defaultJacket,
   };
 }
@@ -125,12 +141,12 @@ export function currencyOfCountry(countryCode: string): string | undefined {
   return COUNTRY_CURRENCY[countryCode];
 }
 
-/** The unit a fuel is priced in by default under each unit system. */
-export function defaultPriceUnit(fuelId: FuelId, system: UnitSystem): FuelPriceUnit {
+/** The unit a fuel is billed in by default in a market: therms and gallons in North America, metric elsewhere. */
+export function defaultPriceUnit(fuelId: FuelId, market: MarketId): FuelPriceUnit {
   const fuel = fuelById(fuelId);
   if (!fuel) return 'kWh';
   const metric: readonly FuelPriceUnit[] = ['m3', 'litre', 'kWh'];
-  if (system === 'SI') return fuel.priceUnits.find((u) => metric.includes(u)) ?? fuel.defaultPriceUnit;
+  if (findMarket(market).stockSeries === 'mm') return fuel.priceUnits.find((u) => metric.includes(u)) ?? fuel.defaultPriceUnit;
   return fuel.defaultPriceUnit;
 }
 
@@ -142,9 +158,9 @@ export function serviceCondition(service: ServiceId): Pick<DraftRun, 'steamGauge
     : { steamGaugePressureKPa: undefined, fluidTemperatureC: defaults.typicalTemperatureC };
 }
 
-/** The pipe a new run starts with: 2-inch schedule 40 steel, or DN50 for metric plants. */
-export function defaultPipe(system: UnitSystem, standardId?: PipeStandardId): DraftRun['pipe'] {
-  const standard = pipeStandard(standardId ?? (system === 'US' ? 'ASME-B36.10M' : 'EN-10220')) ?? PIPE_STANDARDS[0];
+/** The pipe a new run starts with: the market's steel pipe at 2 inch / DN50, its usual wall (schedule 40). */
+export function defaultPipe(market: MarketId, standardId?: PipeStandardId): DraftRun['pipe'] {
+  const standard = pipeStandard(standardId ?? findMarket(market).pipeStandard) ?? PIPE_STANDARDS[0];
   if (!standard) throw new RangeError('The engine lists no pipe standard.');
   const entry = standard.sizes.find((s) => s.dn === 50) ?? standard.sizes[0];
   return {
@@ -153,6 +169,30 @@ export function defaultPipe(system: UnitSystem, standardId?: PipeStandardId): Dr
     schedule: entry?.defaultSchedule,
     material: standard.defaultMaterial,
   };
+}
+
+const sameJson = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
+
+/**
+ * What choosing the plant's country settles: runs still on a market's starting pipe take this
+ * market's, and a price unit still at a market's starting unit takes this market's. Anything
+ * the person chose stays as they chose it.
+ */
+export function settleMarket(
+  values: Pick<DraftValues, 'estimate'>,
+  market: MarketId,
+): { priceUnit: FuelPriceUnit | undefined; runPipes: { index: number; pipe: DraftRun['pipe'] }[] } {
+  const markets = MARKET_IDS;
+  const fuel = values.estimate.energy.fuel ?? 'natural-gas';
+  const startingUnits = new Set(markets.map((m) => defaultPriceUnit(fuel, m)));
+  const current = values.estimate.energy.priceUnit;
+  const priceUnit = current === undefined || startingUnits.has(current) ? defaultPriceUnit(fuel, market) : undefined;
+  const startingPipes = markets.map((m) => defaultPipe(m));
+  const target = defaultPipe(market);
+  const runPipes = values.estimate.runs.flatMap((run, index) =>
+    startingPipes.some((pipe) => sameJson(pipe, run.pipe)) && !sameJson(run.pipe, target) ? [{ index, pipe: target }] : [],
+  );
+  return { priceUnit: priceUnit !== current ? priceUnit : undefined, runPipes };
 }
 
 /**
@@ -183,12 +223,12 @@ function notYetAnswered<T>(): T {
   return undefined as T;
 }
 
-export function newRun(system: UnitSystem, number: number, service: ServiceId = 'steam'): DraftRun {
+export function newRun(market: MarketId, number: number, service: ServiceId = 'steam'): DraftRun {
   return {
     id: newRunId(),
     label: `Run ${number}`,
     service,
-    pipe: defaultPipe(system),
+    pipe: defaultPipe(market),
     lengthM: notYetAnswered<number>(),
     ...serviceCondition(service),
     ambient: { kind: 'indoor-still' },
@@ -213,6 +253,7 @@ export function guessUnitSystem(): UnitSystem {
 
 export function freshValues(system: UnitSystem = guessUnitSystem()): DraftValues {
   const fuel: FuelId = 'natural-gas';
+  const market = draftMarket(undefined, system);
   return {
     contact: { name: '', company: '', email: '', phone: '' },
     plant: { plantName: '', plantType: notYetAnswered<DraftValues['plant']['plantType']>(), countryCode: '', postalCode: '' },
@@ -223,7 +264,7 @@ export function freshValues(system: UnitSystem = guessUnitSystem()): DraftValues
       energy: {
         fuel,
         price: notYetAnswered<number>(),
-        priceUnit: defaultPriceUnit(fuel, system),
+        priceUnit: defaultPriceUnit(fuel, market),
         currency: PLANT_DEFAULTS.currency,
       },
       economics: {
@@ -231,7 +272,7 @@ export function freshValues(system: UnitSystem = guessUnitSystem()): DraftValues
         discountRatePercent: PLANT_DEFAULTS.economics.discountRatePercent,
         fuelEscalationPercent: PLANT_DEFAULTS.economics.fuelEscalationPercent,
       },
-      runs: [newRun(system, 1)],
+      runs: [newRun(market, 1)],
     },
     consent: notYetAnswered<true>(),
     website: '',

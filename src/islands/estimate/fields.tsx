@@ -14,13 +14,14 @@ import {
 } from 'react-hook-form';
 import {
   displayUnit,
-  formatForInput,
+  formatConverted,
   parseTyped,
   type UnitSystem,
 } from '../../lib/units-display';
 import { formFieldAt, type FormField } from '../../lib/form-fields';
 import type { DraftValues } from './draft';
 import { fieldContextFrom } from './resolver';
+import { rememberTyped, typedFigure } from './store';
 
 export type Name = FieldPath<DraftValues>;
 
@@ -145,7 +146,12 @@ export function NumberField({ name, hint, optional, placeholder, signed, whole, 
   const symbol = unit?.symbol ?? (unitText?.(context) || undefined);
   const id = fieldId(name);
   const error = fieldState.error?.message;
-  const shown = typing ?? (quantity ? formatForInput(field.value, quantity, system) : field.value === undefined || field.value === null ? '' : String(field.value));
+  // What was typed, while it still stands for the stored value in these units; else the value converted.
+  const remembered = typedFigure(name, system, field.value);
+  const shown =
+    typing ??
+    remembered ??
+    (quantity ? formatConverted(field.value, quantity, system) : field.value === undefined || field.value === null ? '' : String(field.value));
   return (
     <FieldFrame
       id={id}
@@ -172,8 +178,11 @@ export function NumberField({ name, hint, optional, placeholder, signed, whole, 
           onChange={(event) => {
             setTyping(event.target.value);
             const typed = parseTyped(event.target.value);
-            if (typeof typed === 'number') field.onChange(unit ? unit.toBase(typed) : typed);
-            else field.onChange(typed);
+            if (typeof typed === 'number') {
+              const valueSI = unit ? unit.toBase(typed) : typed;
+              rememberTyped(name, system, valueSI, event.target.value.trim());
+              field.onChange(valueSI);
+            } else field.onChange(typed);
           }}
           onBlur={() => {
             setTyping(null);
@@ -238,22 +247,31 @@ interface SelectFieldProps {
   className?: string;
 }
 
+/**
+ * A drop-down bound to the form's value (not only to the DOM), so a value set in code — the
+ * usual schedule after a change of standard — shows at once, even when its option is new.
+ */
 export function SelectField({ name, label, options, hint, optional, emptyLabel, onChosen, className }: SelectFieldProps) {
-  const { register } = useFormContext<DraftValues>();
+  const { field } = useController<DraftValues>({ name });
   const error = useFieldError(name);
   const id = fieldId(name);
-  const registered = register(name, {
-    setValueAs: (value: unknown) => (value === '' ? undefined : value),
-    onChange: (event: { target: { value: string } }) => onChosen?.(event.target.value),
-  } as RegisterOptions<DraftValues, Name>);
+  const value = typeof field.value === 'string' ? field.value : '';
   return (
     <FieldFrame id={id} label={label} hint={hint} error={error} optional={optional} className={className}>
       <select
+        ref={field.ref}
         id={id}
+        name={name}
         className="input select-input"
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy(hint !== undefined && `${id}-hint`, error && `${id}-error`)}
-        {...registered}
+        value={value}
+        onChange={(event) => {
+          const chosen = event.target.value;
+          field.onChange(chosen === '' ? undefined : chosen);
+          onChosen?.(chosen);
+        }}
+        onBlur={field.onBlur}
       >
         {emptyLabel !== undefined && <option value="">{emptyLabel}</option>}
         {options.map((option) => (

@@ -4,7 +4,7 @@
  * the live estimate and the submission's progress live in memory only.
  */
 import { atom, map } from 'nanostores';
-import { persistentAtom } from '@nanostores/persistent';
+import { persistentAtom, persistentMap } from '@nanostores/persistent';
 import { requestEstimate, submitAssessment, type ApiFailure, type SubmittedAssessment } from '../../lib/api-client';
 import type { PlantInput, PlantResult } from '../../engine';
 import { MAX_PHOTO_BYTES, MAX_PHOTOS, PHOTO_FIELD } from '../../schemas/assessment';
@@ -51,6 +51,25 @@ export const $step = persistentAtom<StepId>(`${KEY}step`, 'plant', {
 
 /** Made when the draft starts and replaced after a successful submission, so a double click stores one assessment. */
 export const $idempotencyKey = persistentAtom<string>(`${KEY}idempotency-key`, newIdempotencyKey(), { listen: false });
+
+/**
+ * What the person typed in each number box, with the unit system and the SI value it stood
+ * for (`US|30.48|100`): a box shows exactly that again while it is in the same units, and a
+ * sensible rounding of the converted value in the other (131 ft reads 39.9 m, then 131 ft).
+ */
+export const $typedFigures = persistentMap<Record<string, string | undefined>>(`${KEY}typed:`, {}, { listen: false });
+
+/** What was typed at a path, if it still stands for `valueSI` in `system`. */
+export function typedFigure(path: string, system: string, valueSI: unknown): string | undefined {
+  const entry = $typedFigures.get()[path];
+  if (!entry || typeof valueSI !== 'number') return undefined;
+  const [typedSystem, typedSI, ...text] = entry.split('|');
+  return typedSystem === system && Number(typedSI) === valueSI ? text.join('|') : undefined;
+}
+
+export function rememberTyped(path: string, system: string, valueSI: number, text: string): void {
+  $typedFigures.setKey(path, `${system}|${valueSI}|${text}`);
+}
 
 /** Steps that still have a problem (from the assessment schema), for the step list. */
 export const $stepsWithProblems = atom<ReadonlySet<StepId>>(new Set());
@@ -222,6 +241,7 @@ export function clearDraft(): void {
   keyKept = true;
   $photos.set({});
   $photoMessages.set({});
+  $typedFigures.set({});
   $estimate.set({ result: null, resultFor: null, inputFor: null, loading: false, failure: null });
 }
 
