@@ -66,10 +66,10 @@ describe('an owner’s whole journey, in a browser', () => {
     await fillRun(page, 2, { name: 'Glycol to tofu chiller', service: 'glycol', length: '30' });
     expect(await page.locator('.run-card').count()).toBe(3);
 
-    // Units switched midway: the glycol run's 30 m reads in feet, and back.
+    // Units switched midway: the glycol run's 30 m reads 98.4 ft (three figures of a conversion), and 30 m again.
     await page.locator('#f-estimate-runs-2-lengthM').blur();
     await page.getByLabel(/^US/).check();
-    expect(await page.locator('#f-estimate-runs-2-lengthM').inputValue()).toBe('98.43');
+    expect(await page.locator('#f-estimate-runs-2-lengthM').inputValue()).toBe('98.4');
     await page.getByLabel(/^SI/).check();
     expect(await page.locator('#f-estimate-runs-2-lengthM').inputValue()).toBe('30');
 
