@@ -10,6 +10,7 @@ import { pruneThrottles } from './db/queries/sign-in-throttles';
 import { jobHandlers } from './lib/jobs/handlers';
 import { jobNames, STALE_CHECK_CRON } from './lib/jobs/names';
 import { installProcessGuards } from './lib/process-guards';
+import { RETENTION_SWEEP_CRON } from './lib/retention/policy';
 
 // pg-boss and pg lose their connections when PostgreSQL restarts; they reconnect on their own
 // as long as the process outlives the moment.
@@ -51,6 +52,7 @@ for (const [queue, handle] of Object.entries(jobHandlers)) {
   });
 }
 await boss.schedule(jobNames.checkStaleLeads, STALE_CHECK_CRON, {}, { tz: 'UTC' });
+await boss.schedule(jobNames.sweepRetention, RETENTION_SWEEP_CRON, {}, { tz: 'UTC' });
 
 console.log(`[worker] working ${Object.keys(jobHandlers).join(', ')} (polling every ${pollingIntervalSeconds} s)`);
 

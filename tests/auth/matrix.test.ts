@@ -73,6 +73,7 @@ const nobody = '00000000-0000-4000-8000-000000000000';
 const rows: Row[] = [
   { method: 'GET', route: '/account', path: () => '/account', expect: signedInPage() },
   { method: 'GET', route: '/sign-in', path: () => '/sign-in', expect: all(200) },
+  { method: 'GET', route: '/sign-in/link-used', path: () => '/sign-in/link-used?again=x', expect: all(200) },
   { method: 'GET', route: '/not-for-your-account', path: () => '/not-for-your-account', expect: all(403) },
   { method: 'GET', route: '/my/assessments', path: () => '/my/assessments', expect: { ...signedInPage(), consultantIn: 403, consultantOut: 403 } },
   {

@@ -57,7 +57,7 @@ describe('switching units never changes a money figure or a catalogue', () => {
     expect(si.market).toBe('US');
     expect(si.range.installedCost).toEqual(us.range.installedCost);
     expect(si.range.annualCostSaving).toEqual(us.range.annualCostSaving);
-    const perRun = (result: typeof us) => result.runs.map((run) => [run.choice.option, run.current.annualCost, run.savings.annualCost, run.installedCost]);
+    const perRun = (result: typeof us) => result.runs.map((run) => [run.proposed.option, run.current.annualCost, run.savings.annualCost, run.installedCost]);
     expect(perRun(us)).toHaveLength(3);
     expect(perRun(si)).toEqual(perRun(us));
   });

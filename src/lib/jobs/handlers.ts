@@ -9,6 +9,8 @@ import { getAuth } from '../auth';
 import { sendEmail } from '../email/mailer';
 import { NothingToSend, renderEmail } from '../email/render';
 import type { LinkMailMetadata, SubmissionLinkMetadata } from '../sign-in-links';
+import { spentLinkPath } from '../sign-in-again';
+import { sweepRetention } from '../retention/sweep';
 import { alertAdminsOfUnrouted, mailStaleDigest } from '../admin/oversight';
 import { derivedJobId, enqueue, jobExists, jobNames } from './queue';
 import type { JobName, JobPayloads } from './names';
@@ -48,7 +50,12 @@ export const jobHandlers: { [N in JobName]: Handler<N> } = {
       // A new link revokes the older ones; better-auth mints it and hands it to deliverSignInLink, which queues the mail.
       await revokeSignInLinks(getDb(), assessment.contactEmail);
       await getAuth().api.signInMagicLink({
-        body: { email: assessment.contactEmail, callbackURL: `/my/assessments/${assessment.id}`, metadata: { ...metadata } },
+        body: {
+          email: assessment.contactEmail,
+          callbackURL: `/my/assessments/${assessment.id}`,
+          errorCallbackURL: spentLinkPath(assessment.contactEmail, `/my/assessments/${assessment.id}`),
+          metadata: { ...metadata },
+        },
         headers: new Headers(),
       });
     }),
@@ -103,7 +110,7 @@ export const jobHandlers: { [N in JobName]: Handler<N> } = {
     const metadata: LinkMailMetadata = { mailJobId };
     await revokeSignInLinks(getDb(), job.data.email);
     await getAuth().api.signInMagicLink({
-      body: { email: job.data.email, callbackURL: job.data.next, metadata: { ...metadata } },
+      body: { email: job.data.email, callbackURL: job.data.next, errorCallbackURL: spentLinkPath(job.data.email, job.data.next), metadata: { ...metadata } },
       headers: new Headers(),
     });
   },
@@ -118,5 +125,9 @@ export const jobHandlers: { [N in JobName]: Handler<N> } = {
       }
       throw error;
     }
+  },
+  'retention-sweep': async () => {
+    const outcome = await sweepRetention(getDb());
+    console.log(`[worker] retention sweep: ${JSON.stringify(outcome)}`);
   },
 };

@@ -16,6 +16,8 @@ export const jobNames = {
   requestSignInLink: 'sign-in-link-request',
   /** Render a sent report's PDF into object storage, then queue the owner's e-mail with it attached. */
   renderReportPdf: 'report-pdf-render',
+  /** Daily (pg-boss schedule): remove or anonymise what the privacy page says goes (src/lib/retention). */
+  sweepRetention: 'retention-sweep',
 } as const;
 
 export type JobName = (typeof jobNames)[keyof typeof jobNames];
@@ -32,6 +34,7 @@ export interface JobPayloads {
   'stale-leads-check': Record<string, never>;
   'sign-in-link-request': { email: string; next: string };
   'report-pdf-render': { reportId: string };
+  'retention-sweep': Record<string, never>;
 }
 
 /** When the stale-lead check runs (cron, UTC): hourly, so a digest goes out soon after leads go stale. */
@@ -53,5 +56,7 @@ export function queuePolicies(retryDelaySeconds: number, expireInSeconds = 300) 
     // The next hour's run does the same work; no need to retry for long.
     'stale-leads-check': { retryLimit: 2, retryDelay: retryDelaySeconds, retryBackoff: true, retentionDays: 2 },
     'sign-in-link-request': { ...patient, retryLimit: 5 },
+    // Tomorrow's run does the same work.
+    'retention-sweep': { retryLimit: 2, retryDelay: retryDelaySeconds, retryBackoff: true, retentionDays: 7 },
   } satisfies Record<JobName, object>;
 }
