@@ -254,6 +254,7 @@ describe('the estimate wizard in a browser', () => {
     // In SI a run added to this US plant is still NPS steel pipe; after a change of standard the wall is the usual one.
     await page.getByLabel(/^SI/).check();
     await page.getByRole('button', { name: 'Add a run' }).click();
+    await page.locator('.run-card').nth(1).locator('summary', { hasText: 'More about this run' }).click();
     expect(await page.locator('#f-estimate-runs-1-pipe-standard').inputValue()).toBe('ASME-B36.10M');
     await page.locator('#f-estimate-runs-1-pipe-standard').selectOption('ASTM-B88-L');
     await page.locator('#f-estimate-runs-1-pipe-standard').selectOption('ASME-B36.10M');

@@ -16,6 +16,7 @@ import { displayUnit, formatForInput, type DisplayQuantity, type UnitSystem } fr
 import { draftMarket, existingInsulationDefaults, pipeStandard, serviceCondition, type DraftValues } from './draft';
 import { ChoiceField, CheckField, GuessToggle, NumberField, SelectField, TextField, useHasErrorUnder, useUnitSystem, type Option } from './fields';
 import { PhotoPicker } from './PhotoPicker';
+import { SizeFinder } from './SizeFinder';
 
 interface Props {
   index: number;
@@ -42,6 +43,8 @@ const STANDARD_NAMES: Record<string, string> = {
   'ASTM-B88-L': 'Copper tube, Type L (ASTM B88)',
   'ASTM-B88-K': 'Copper tube, Type K (ASTM B88)',
   'EN-10220': 'Metric steel tube, DN (EN 10220)',
+  'ASTM-A270-SANITARY': 'Food-grade stainless tube, OD (ASTM A270)',
+  'DIN-11850-2': 'Metric food-grade stainless tube (DIN 11850)',
 };
 
 /** "NPS 2 · 2.375 in OD", "DN50 · 60.3 mm OD", "3/4 in · 0.875 in OD". */
@@ -71,6 +74,13 @@ function scheduleHint(standard: PipeStandard, entry: PipeSizeEntry | undefined):
   if (!entry || standard.id === 'EN-10220') return undefined;
   if (standard.id.startsWith('ASTM-B88')) return 'Type L is the usual copper tube for hot and cold water.';
   return `Schedule ${entry.defaultSchedule} is the usual wall for ${standard.id === 'ASME-B36.19M' ? 'stainless lines' : 'steam and water lines'}.`;
+}
+
+/** "schedule 40", "Type L", "2.0 mm wall": the chosen wall in a few words. */
+function scheduleWords(standard: PipeStandard, key: string): string {
+  if (standard.id === 'EN-10220' || standard.id.startsWith('DIN')) return `${key} mm wall`;
+  if (standard.id.startsWith('ASTM-B88')) return `Type ${key}`;
+  return /^\d/.test(key) ? `schedule ${key}` : key;
 }
 
 function closestSize(standard: PipeStandard, nominalInch: number | undefined): PipeSizeEntry | undefined {
@@ -146,6 +156,14 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
   const jacketOptions: Option[] = JACKETS.map((j) => ({ value: j.id, label: j.name }));
   const proposalHasError = useHasErrorUnder(`${base}.proposed`);
 
+  const market = draftMarket(getValues('plant.countryCode'), system);
+  const detailHasError = useHasErrorUnder(`${base}.pipe`);
+  const pipeNow = entry && standard ? `${sizeLabel(standard, entry, system)}${pipe?.schedule && schedules.length > 1 ? `, ${scheduleWords(standard, pipe.schedule)}` : ''}` : 'not chosen yet';
+  const lineNow =
+    service.kind === 'steam'
+      ? `${formatQuantity(run?.steamGaugePressureKPa ?? service.typicalGaugePressureKPa ?? 0, 'gaugePressure', system)} steam`
+      : formatTemperature(run?.fluidTemperatureC ?? service.typicalTemperatureC, system);
+
   return (
     <section className={`run-card ${cold ? 'run-card-cold' : 'run-card-hot'}`} aria-labelledby={headingId}>
       <div className="run-card-head">
@@ -176,57 +194,16 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
       </div>
 
       <fieldset className="group">
-        <legend className="group-legend">Pipe</legend>
-        <div className="field-grid">
-          <SelectField
-            name={`${base}.pipe.standard`}
-            label="Pipe or tube standard"
-            options={PIPE_STANDARDS.map((s) => ({ value: s.id, label: STANDARD_NAMES[s.id] ?? s.name }))}
-            onChosen={chooseStandard}
-          />
-          {standard && (
-            <SelectField
-              name={`${base}.pipe.size`}
-              label="Size"
-              options={standard.sizes.map((s) => ({ value: s.size, label: sizeLabel(standard, s, system) }))}
-              onChosen={chooseSize}
-            />
-          )}
-          {standard && schedules.length > 1 && (
-            <SelectField
-              name={`${base}.pipe.schedule`}
-              label={standard.id === 'EN-10220' ? 'Wall thickness' : 'Schedule'}
-              options={schedules.map(([key, wall]) => ({ value: key, label: scheduleLabel(standard, key, wall, system) }))}
-              hint={scheduleHint(standard, entry)}
-            />
-          )}
-          <SelectField
-            name={`${base}.pipe.material`}
-            label="Pipe material"
-            options={PIPE_MATERIALS.map((m) => ({ value: m.id, label: m.name }))}
-          />
-        </div>
+        <legend className="group-legend">How big is the pipe?</legend>
+        <p className="field-hint run-now">
+          Now: <strong>{pipeNow}</strong>. Know the size? Choose it under “More about this run”.
+        </p>
+        <SizeFinder base={base} market={market} system={system} />
       </fieldset>
 
-      <div className="field-grid">
-        <div className="field-with-guess">
-          <NumberField name={`${base}.lengthM`} hint="End to end, bends included." />
-          <GuessToggle name={`${base}.lengthConfidence`} label="The length is a guess" />
-        </div>
-        {service.kind === 'steam' ? (
-          <NumberField
-            key="steam"
-            name={`${base}.steamGaugePressureKPa`}
-            hint={`Usual for process steam: ${typical(service.typicalGaugePressureKPa ?? 0, 'gaugePressure', system)}.`}
-          />
-        ) : (
-          <NumberField
-            key="liquid"
-            name={`${base}.fluidTemperatureC`}
-            signed
-            hint={`Usual for ${service.name.toLowerCase()}: ${typical(service.typicalTemperatureC, 'temperature', system)}.`}
-          />
-        )}
+      <div className="field-with-guess">
+        <NumberField name={`${base}.lengthM`} hint="End to end, bends included. Pacing it out is fine." />
+        <GuessToggle name={`${base}.lengthConfidence`} label="The length is a guess" />
       </div>
 
       <ChoiceField
@@ -235,7 +212,7 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
         inline
         options={[
           { value: 'indoor-still', label: 'Indoors, still air' },
-          { value: 'indoor-draughty', label: 'Indoors, draughty', note: 'near doors or fans' },
+          { value: 'indoor-draughty', label: 'Indoors, in a draught', note: 'near doors or fans' },
           { value: 'outdoor', label: 'Outdoors', note: 'in the wind' },
         ]}
       />
@@ -249,33 +226,22 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
       )}
 
       <fieldset className="group">
-        <legend className="group-legend">Insulation today</legend>
+        <legend className="group-legend">What it looks like today</legend>
         <ChoiceField
           name={`${base}.current.state`}
-          legend="State of the run"
+          legend="The pipe today"
           inline
           onChosen={chooseState}
           options={[
-            { value: 'bare', label: 'Bare', note: 'no insulation at all' },
-            { value: 'damaged', label: 'Damaged', note: 'partly stripped or wet' },
-            { value: 'insulated', label: 'Insulated', note: 'whole and dry' },
+            { value: 'bare', label: 'Bare metal', note: 'no lagging at all' },
+            { value: 'damaged', label: 'Lagged, with gaps', note: 'torn, missing or wet in places' },
+            { value: 'insulated', label: 'Lagged all along', note: 'whole and dry' },
           ]}
         />
-        {state !== 'bare' && (
-          <div className="field-grid">
-            {state === 'damaged' && (
-              <div className="field-with-guess">
-                <NumberField
-                  name={`${base}.current.bareFraction`}
-                  hint="0 to 100 %: a run with half its lagging missing is 50 %."
-                />
-                <GuessToggle name={`${base}.current.bareFractionConfidence`} label="The share is a guess" />
-              </div>
-            )}
-            <SelectField name={`${base}.current.material`} label="Insulation on it" options={insulationOptions} />
-            <NumberField name={`${base}.current.thicknessM`} />
-            <SelectField name={`${base}.current.jacket`} label="Its outer covering" options={jacketOptions} />
-            <CheckField name={`${base}.fittingsInsulated`} label="Its valves and flanges are insulated too" />
+        {state === 'damaged' && (
+          <div className="field-with-guess">
+            <NumberField name={`${base}.current.bareFraction`} hint="Roughly how much of it is bare: half the lagging missing is 50 %." />
+            <GuessToggle name={`${base}.current.bareFractionConfidence`} label="The share is a guess" />
           </div>
         )}
         {state !== 'insulated' && (
@@ -285,43 +251,113 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
         )}
       </fieldset>
 
-      <fieldset className="group">
-        <legend className="group-legend">Valves and flanges on the run</legend>
-        <div className="field-grid">
-          <NumberField name={`${base}.valves`} whole hint="Each valve body with its bonnet." />
-          <NumberField name={`${base}.flangePairs`} whole hint="A bolted joint counts as one pair." />
-        </div>
-      </fieldset>
-
-      <details className="group proposal" open={proposalHasError || undefined}>
-        <summary className="group-legend">
-          Proposed insulation <span className="field-optional">(optional)</span>
-        </summary>
+      <details className="group run-more" open={detailHasError || undefined}>
+        <summary className="group-legend">More about this run</summary>
         <p className="field-hint">
-          Left as they are, Lagwise proposes {materialName(service.defaultInsulation).toLowerCase()} in{' '}
-          {jacketName(service.defaultJacket).toLowerCase()}, at the thickness that costs least over the years counted
-          {cold ? ', and never thinner than keeps the surface above the dew point' : ', and never thinner than keeps the surface safe to touch'}.
+          Usual values are filled in for you: {pipeNow}; {lineNow}; no valves or flanges counted. Change what you know.
         </p>
-        <div className="field-grid">
-          <SelectField
-            name={`${base}.proposed.material`}
-            label="Material"
-            emptyLabel={`Usual for ${service.name.toLowerCase()}: ${materialName(service.defaultInsulation)}`}
-            options={insulationOptions}
-          />
+
+        <fieldset className="group">
+          <legend className="group-legend">Pipe</legend>
+          <div className="field-grid">
+            <SelectField
+              name={`${base}.pipe.standard`}
+              label="Pipe or tube standard"
+              options={PIPE_STANDARDS.map((s) => ({ value: s.id, label: STANDARD_NAMES[s.id] ?? s.name }))}
+              onChosen={chooseStandard}
+              hint="Steel pipe goes by its NPS, a nominal size in inches that is not its real diameter; copper and food-grade tube by their outside diameter."
+            />
+            {standard && (
+              <SelectField
+                name={`${base}.pipe.size`}
+                label="Size"
+                options={standard.sizes.map((s) => ({ value: s.size, label: sizeLabel(standard, s, system) }))}
+                onChosen={chooseSize}
+              />
+            )}
+            {standard && schedules.length > 1 && (
+              <SelectField
+                name={`${base}.pipe.schedule`}
+                label={standard.id === 'EN-10220' ? 'Wall thickness' : 'Schedule (wall thickness)'}
+                options={schedules.map(([key, wall]) => ({ value: key, label: scheduleLabel(standard, key, wall, system) }))}
+                hint={scheduleHint(standard, entry)}
+              />
+            )}
+            <SelectField
+              name={`${base}.pipe.material`}
+              label="Pipe material"
+              options={PIPE_MATERIALS.map((m) => ({ value: m.id, label: m.name }))}
+            />
+          </div>
+        </fieldset>
+
+        {service.kind === 'steam' ? (
           <NumberField
-            name={`${base}.proposed.thicknessM`}
-            optional
-            hint="Leave it empty and Lagwise picks the economic thickness."
+            key="steam"
+            name={`${base}.steamGaugePressureKPa`}
+            className="max-w-sm"
+            hint={`What the gauge on the line reads. Usual for process steam: ${typical(service.typicalGaugePressureKPa ?? 0, 'gaugePressure', system)}.`}
           />
-          <SelectField
-            name={`${base}.proposed.jacket`}
-            label="Outer covering"
-            emptyLabel={`Usual: ${jacketName(service.defaultJacket)}`}
-            options={jacketOptions}
+        ) : (
+          <NumberField
+            key="liquid"
+            name={`${base}.fluidTemperatureC`}
+            signed
+            className="max-w-sm"
+            hint={`Usual for ${service.name.toLowerCase()}: ${typical(service.typicalTemperatureC, 'temperature', system)}.`}
           />
-          <CheckField name={`${base}.proposed.coverFittings`} label="Fit removable covers on valves and flanges" />
-        </div>
+        )}
+
+        {state !== 'bare' && (
+          <fieldset className="group">
+            <legend className="group-legend">The lagging on it</legend>
+            <div className="field-grid">
+              <SelectField name={`${base}.current.material`} label="Insulation on it" options={insulationOptions} />
+              <NumberField name={`${base}.current.thicknessM`} />
+              <SelectField name={`${base}.current.jacket`} label="Its outer covering" options={jacketOptions} />
+              <CheckField name={`${base}.fittingsInsulated`} label="Its valves and flanges are lagged too" />
+            </div>
+          </fieldset>
+        )}
+
+        <fieldset className="group">
+          <legend className="group-legend">Valves and flanges on the run</legend>
+          <div className="field-grid">
+            <NumberField name={`${base}.valves`} whole hint="Each valve body with its bonnet." />
+            <NumberField name={`${base}.flangePairs`} whole hint="A bolted joint counts as one pair." />
+          </div>
+        </fieldset>
+
+        <details className="group proposal" open={proposalHasError || undefined}>
+          <summary className="group-legend">
+            Proposed insulation <span className="field-optional">(optional)</span>
+          </summary>
+          <p className="field-hint">
+            Left as they are, Lagwise proposes {materialName(service.defaultInsulation).toLowerCase()} in{' '}
+            {jacketName(service.defaultJacket).toLowerCase()}, at the thickness that costs least over the years counted
+            {cold ? ', and never thinner than keeps the surface above the dew point' : ', and never thinner than keeps the surface safe to touch'}.
+          </p>
+          <div className="field-grid">
+            <SelectField
+              name={`${base}.proposed.material`}
+              label="Material"
+              emptyLabel={`Usual for ${service.name.toLowerCase()}: ${materialName(service.defaultInsulation)}`}
+              options={insulationOptions}
+            />
+            <NumberField
+              name={`${base}.proposed.thicknessM`}
+              optional
+              hint="Leave it empty and Lagwise picks the thickness that costs least over the years counted."
+            />
+            <SelectField
+              name={`${base}.proposed.jacket`}
+              label="Outer covering"
+              emptyLabel={`Usual: ${jacketName(service.defaultJacket)}`}
+              options={jacketOptions}
+            />
+            <CheckField name={`${base}.proposed.coverFittings`} label="Fit removable covers on valves and flanges" />
+          </div>
+        </details>
       </details>
 
       <PhotoPicker runId={runId} runTitle={title} />
