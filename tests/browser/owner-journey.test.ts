@@ -96,6 +96,8 @@ describe('an owner’s whole journey, in a browser', () => {
     // Contact and submission.
     await page.getByRole('button', { name: 'Ask a consultant to follow up' }).click();
     await waitForStep(page, 'Send it to a consultant');
+    // The plant's name from the first step is offered as the company.
+    expect(await page.getByLabel('Company or plant').inputValue()).toBe('Gillbrook Tofu Works');
     await page.getByLabel('Your name').fill(owner.name);
     await page.getByLabel('Company or plant').fill(owner.company);
     await page.getByLabel(/^E-mail/).fill(owner.email);

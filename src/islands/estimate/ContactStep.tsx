@@ -1,10 +1,16 @@
 /** Step 5: who a consultant should contact, consent, and the field only bots fill in. */
+import { useEffect } from 'react';
 import { useFormContext } from 'react-hook-form';
 import type { DraftValues } from './draft';
 import { CheckField, TextField } from './fields';
 
 export function ContactStep({ sending }: { sending: boolean }) {
-  const { register } = useFormContext<DraftValues>();
+  const { register, getValues, setValue } = useFormContext<DraftValues>();
+  // The plant's name, given at the first step, is the likeliest answer here; the person may change it.
+  useEffect(() => {
+    const plantName = getValues('plant.plantName')?.trim();
+    if (plantName && !getValues('contact.company')?.trim()) setValue('contact.company', plantName, { shouldDirty: true });
+  }, [getValues, setValue]);
   return (
     <div className="step-body">
       <p className="step-lead">

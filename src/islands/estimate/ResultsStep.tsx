@@ -4,13 +4,13 @@
  * rounds them (the same strings as the owner's page and the e-mails).
  */
 import { useMemo, useState, type ReactNode } from 'react';
-import type { PlantResult } from '../../engine';
-import { presentResult, type PresentedFigure, type PresentedResult, type PresentedRun } from '../../lib/presentation';
+import type { PlantResult, RunEstimate } from '../../engine';
+import { presentOptions, presentResult, type DisplayFormat, type PresentedFigure, type PresentedResult, type PresentedRun } from '../../lib/presentation';
 import type { LiveEstimate } from './store';
 import { liveStatus } from './SummaryStrip';
 import { useUnitSystem } from './fields';
 import { ChartPanel } from './charts/ChartPanel';
-import { cashFlow, lifeCycleByThickness, lossByRun, temperatureProfile } from './charts/series';
+import { cashFlow, lossByRun, temperatureProfile } from './charts/series';
 
 interface Props {
   live: LiveEstimate;
@@ -348,19 +348,55 @@ function Charts({ result, presented }: { result: PlantResult; presented: Present
               reading={`${shownRun.label}: the surface is ${shownRun.today.surface} now and would be ${shownRun.proposed.surface} with the proposed insulation.`}
               spec={temperatureProfile(run, f, touchLimitC)}
             />
-            <ChartPanel
-              id="chart-thickness"
-              title="Cost against thickness"
-              reading={
-                run.economicThickness && shownRun.economicThickness
-                  ? `${shownRun.label}: ${shownRun.economicThickness} costs least over ${horizon} years (${f.money(run.economicThickness.lifeCycleCost)}).`
-                  : `${shownRun.label}: no stock thickness to compare.`
-              }
-              spec={lifeCycleByThickness(run, f, horizon)}
-            />
+            <RunChoices run={run} label={shownRun.label} reason={shownRun.choice.reason} format={f} horizon={horizon} />
           </>
         )}
       </div>
+    </section>
+  );
+}
+
+/** The run's choices side by side, money and safety for each; the chosen one marked. */
+function RunChoices({ run, label, reason, format, horizon }: { run: RunEstimate; label: string; reason: string; format: DisplayFormat; horizon: number }) {
+  const options = presentOptions(run, format);
+  return (
+    <section className="run-choices" aria-labelledby="run-choices-heading">
+      <h3 id="run-choices-heading" className="chart-title">
+        The choices for {label}
+      </h3>
+      <p className="chart-reading">{reason}</p>
+      <ul className="choice-cards">
+        {options.map((option) => (
+          <li key={option.kind} className={`choice-card ${option.chosen ? 'choice-card-chosen' : ''}`} data-option={option.kind}>
+            <p className="choice-card-name">
+              {option.label}
+              {option.chosen && <span className="choice-card-badge">Recommended</span>}
+            </p>
+            <dl className="choice-card-figures">
+              <div>
+                <dt>To do it</dt>
+                <dd>{option.installedCost}</dd>
+              </div>
+              <div>
+                <dt>Still costs a year</dt>
+                <dd>{option.yearlyCost}</dd>
+              </div>
+              <div>
+                <dt>Over {horizon} years, all in</dt>
+                <dd>{option.lifeCycleCost}</dd>
+              </div>
+              <div>
+                <dt>Pays back in</dt>
+                <dd>{option.payback}</dd>
+              </div>
+              <div>
+                <dt>Safety</dt>
+                <dd className={option.safe ? 'choice-safe' : 'choice-unsafe'}>{option.safety}</dd>
+              </div>
+            </dl>
+          </li>
+        ))}
+      </ul>
     </section>
   );
 }

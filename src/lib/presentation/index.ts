@@ -13,6 +13,7 @@
 export { presentResult, type PresentedHazard, type PresentedNotice, type PresentedResult, type PresentedRun } from './present';
 export { headlineFor, presentHeadline, type PresentedFigure, type PresentedHeadline } from './headline';
 export { displayFormat, type DisplayFormat, type DisplayOptions } from './format';
+export { presentOptions, type PresentedOption } from './options';
 export { formatMoney, formatMoneyRange } from './money';
 export {
   formatNumber,

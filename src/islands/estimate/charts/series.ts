@@ -104,29 +104,6 @@ export function temperatureProfile(run: RunEstimate, f: DisplayFormat, touchLimi
   };
 }
 
-/** Life-cycle cost against thickness for one run's proposed material, the economic thickness marked. */
-export function lifeCycleByThickness(run: RunEstimate, f: DisplayFormat, horizonYears: number): ChartSpec {
-  const economic = run.economicThickness?.thicknessM;
-  const thicknessSeries = run.thicknessSeries ?? [];
-  return {
-    kind: 'line',
-    name: `Line chart: cost over ${horizonYears} years against insulation thickness for ${run.label}, with the economic thickness marked.`,
-    labels: thicknessSeries.map((option) => f.thickness(option.thicknessM)),
-    series: [
-      { label: `Life-cycle cost (installed + ${horizonYears} years of heat)`, values: thicknessSeries.map((o) => o.lifeCycleCost), tone: 'graphite' },
-      { label: 'Installed cost alone', values: thicknessSeries.map((o) => o.installedCost), tone: 'graphite-soft', dashed: true },
-      {
-        label: 'Economic thickness',
-        values: thicknessSeries.map((o) => (economic !== undefined && Math.abs(o.thicknessM - economic) < 1e-9 ? o.lifeCycleCost : null)),
-        tone: 'mineral',
-        pointsOnly: true,
-      },
-    ],
-    xTitle: `Insulation thickness (${f.unit('thickness')})`,
-    yTitle: `Cost (${f.currency})`,
-    format: (value) => f.money(value),
-  };
-}
 
 export function cashFlow(result: PlantResult, f: DisplayFormat): ChartSpec {
   const years = result.totals.cashFlow;
