@@ -90,7 +90,10 @@ describe('an owner’s whole journey, in a browser', () => {
     await next(page, 'The figures for your plant');
     await page.getByRole('heading', { name: 'Lost every year as things are' }).waitFor();
     await page.locator('canvas[role="img"]').first().waitFor();
-    expect(await page.locator('canvas[role="img"]').count()).toBeGreaterThanOrEqual(4);
+    expect(await page.locator('canvas[role="img"]').count()).toBeGreaterThanOrEqual(3);
+    // The chosen run's choices side by side, the recommended one marked.
+    expect(await page.locator('.choice-card').count()).toBeGreaterThanOrEqual(2);
+    expect(await page.locator('.choice-card-chosen').count()).toBe(1);
     expect(await page.locator('.run-table tbody tr').count()).toBe(3);
 
     // Contact and submission.
