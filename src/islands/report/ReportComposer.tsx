@@ -541,7 +541,8 @@ export default function ReportComposer({ leadId, reference, draft: initial, late
                 <ol className="space-y-1 text-sm">
                   {presented.actions.map((action) => (
                     <li key={action.rank}>
-                      {action.rank}. <strong>{action.runLabel}</strong> {action.tag && <span className="text-mineral">({action.tag.toLowerCase()})</span>}: {action.cost}, pays back {action.payback}
+                      {action.rank}. <strong>{action.runLabel}</strong>
+                      {action.tag && <span className="text-mineral"> ({action.tag.toLowerCase()})</span>}: {action.cost}, pays back {action.payback}
                     </li>
                   ))}
                 </ol>
