@@ -274,8 +274,10 @@ describe('request limits', () => {
   it('answers /api/estimate past its per-client limit with 429 and Retry-After', async () => {
     await clearCounters();
     let limited: Response | undefined;
-    for (let i = 0; i < 260 && !limited; i += 1) {
-      const response = await request('/api/estimate', { method: 'POST', headers: { 'content-type': 'application/json', 'x-forwarded-for': `10.9.${i}.1` }, body: '{}' });
+    // The limit counts per clock minute: a run that crosses into the next minute starts again at
+    // zero there, so up to three limits' worth are sent (one of two adjacent minutes must pass it).
+    for (let i = 0; i < 3 * 240 && !limited; i += 1) {
+      const response = await request('/api/estimate', { method: 'POST', headers: { 'content-type': 'application/json', 'x-forwarded-for': `10.9.${i % 256}.${1 + Math.floor(i / 256)}` }, body: '{}' });
       if (response.status === 429) limited = response;
       else await response.arrayBuffer();
     }
