@@ -234,12 +234,15 @@ async function test(): Promise<void> {
 
 function reset(): void {
   const dir = path.join(stateRoot(), 'demo');
-  const clusters = [path.join(dir, 'pg'), path.join(outsideClusterRoot(dir), 'pg')];
+  const secretsFile = path.join(dir, 'secrets.json');
+  // Without its secrets there is no cluster outside the project to find (its folder is named by them).
+  const pgPassword = existsSync(secretsFile) ? (JSON.parse(readFileSync(secretsFile, 'utf8')) as { pgPassword: string }).pgPassword : null;
+  const clusters = [path.join(dir, 'pg'), ...(pgPassword ? [path.join(outsideClusterRoot(dir, pgPassword), 'pg')] : [])];
   if (clusters.some((cluster) => existsSync(path.join(cluster, 'postmaster.pid')))) {
     throw new StackError('The demo database looks like it is running; stop `npm start` (Ctrl-C) first, then reset.');
   }
   rmSync(dir, { recursive: true, force: true });
-  rmSync(path.dirname(clusters[1]!), { recursive: true, force: true });
+  if (clusters[1]) rmSync(path.dirname(clusters[1]), { recursive: true, force: true });
   say(`wiped ${path.relative(projectRoot, dir)}; the next \`npm start\` begins with fresh demo data.`);
 }
 

@@ -64,7 +64,9 @@ const reachable = new Map<string, boolean>();
 /**
  * Where PostgreSQL keeps its data: in the profile's folder, or — when we are root in a folder
  * the `postgres` user cannot enter (a clone in /root, mode 700) — under /var/tmp, in a folder
- * named after this checkout so two clones never share a cluster.
+ * named after this checkout and its secrets: two clones never share a cluster, and a new clone
+ * in the place of a deleted one (new secrets, same path) never meets the old cluster, whose
+ * password it could not know.
  */
 export function clusterDir(config: StackConfig): string {
   const inState = path.join(config.stateDir, 'pg');
@@ -74,12 +76,12 @@ export function clusterDir(config: StackConfig): string {
     ok = postgresCanEnter(config.stateDir);
     reachable.set(config.stateDir, ok);
   }
-  return ok ? inState : path.join(outsideClusterRoot(config.stateDir), 'pg');
+  return ok ? inState : path.join(outsideClusterRoot(config.stateDir, config.secrets.pgPassword), 'pg');
 }
 
 /** The /var/tmp folder standing in for a state folder the postgres user cannot reach. */
-export function outsideClusterRoot(stateDir: string): string {
-  const tag = createHash('sha256').update(path.resolve(stateDir)).digest('hex').slice(0, 12);
+export function outsideClusterRoot(stateDir: string, pgPassword: string): string {
+  const tag = createHash('sha256').update(`${path.resolve(stateDir)}\0${pgPassword}`).digest('hex').slice(0, 12);
   return path.join('/var/tmp', `lagwise-${tag}`, path.basename(stateDir));
 }
 
