@@ -7,12 +7,11 @@
  */
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-import AxeBuilder from '@axe-core/playwright';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb } from '../../src/db/client';
 import { stopSender } from '../../src/lib/jobs/queue';
-import { launchBrowser, watchForErrors } from '../support/browser';
+import { expectAccessible, launchBrowser, signInAtDesk, watchForErrors } from '../support/browser';
 import { ensureConsultant, ensureDeskRegion, submitLead, TEST_PASSWORD, type SubmittedLead } from '../support/desk';
 import { waitForMessages } from '../support/fixtures';
 import { stack } from '../support/stack';
@@ -23,21 +22,6 @@ const second = { email: 'browser-b@brolga-pipe.example', name: 'Mo Brolga', firm
 let browser: Browser;
 let lead: SubmittedLead;
 let screens: string;
-
-async function accessible(page: Page, what: string): Promise<void> {
-  const results = await new AxeBuilder({ page }).analyze();
-  const serious = results.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
-  expect(serious.map((v) => `${what}: ${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`)).toEqual([]);
-}
-
-async function signIn(context: BrowserContext, email: string): Promise<Page> {
-  const page = await context.newPage();
-  await page.goto(new URL('/sign-in', stack.appUrl).href);
-  await page.locator('#team-email').fill(email);
-  await page.locator('#team-password').fill(TEST_PASSWORD);
-  await Promise.all([page.waitForURL(/\/desk$/), page.locator('#team button[type=submit]').click()]);
-  return page;
-}
 
 async function shot(page: Page, name: string): Promise<void> {
   await page.screenshot({ path: path.join(screens, `${name}.png`), fullPage: true });
@@ -66,7 +50,7 @@ describe('the desk, in a browser', () => {
 
   it('a consultant claims a fresh lead and books a site walk; the region’s other consultant no longer sees it; the owner is told who will call', async () => {
     const desktop = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await signIn(desktop, first.email);
+    const page = await signInAtDesk(desktop, first.email);
     const problems = watchForErrors(page);
 
     // The open list: the lead is there, the owner is not.
@@ -74,7 +58,7 @@ describe('the desk, in a browser', () => {
     await expect(row.count()).resolves.toBe(1);
     const listHtml = await page.content();
     for (const secret of contactOf(lead)) expect(listHtml).not.toContain(secret);
-    await accessible(page, 'open leads');
+    await expectAccessible(page, 'open leads');
     await shot(page, 'desk-open-1280');
     // Beside the side column the list gets a narrow box even in a wide window: it fits that box and never pushes the page sideways.
     for (const width of [1280, 1024]) {
@@ -88,7 +72,7 @@ describe('the desk, in a browser', () => {
     await page.waitForURL(new RegExp(`/desk/leads/${lead.id}$`));
     const before = await page.content();
     for (const secret of contactOf(lead)) expect(before).not.toContain(secret);
-    await accessible(page, 'lead before claim');
+    await expectAccessible(page, 'lead before claim');
     await shot(page, 'desk-lead-open-1280');
 
     // Claim it: the owner's details appear.
@@ -107,24 +91,24 @@ describe('the desk, in a browser', () => {
     const timeline = await page.locator('.timeline').textContent();
     expect(timeline).toContain('Lou Jabiru (Jabiru Thermal) moved it from “Talking” to “Walk booked”');
     expect(timeline).toContain('Lou Jabiru (Jabiru Thermal) took it on');
-    await accessible(page, 'held lead');
+    await expectAccessible(page, 'held lead');
     await shot(page, 'desk-lead-held-1280');
 
     // My leads lists it at its stage.
     await page.goto(new URL('/desk/mine', stack.appUrl).href);
     await expect(page.locator('.held-lead', { hasText: lead.company }).locator('.stage-badge').textContent()).resolves.toBe('Walk booked');
-    await accessible(page, 'my leads');
+    await expectAccessible(page, 'my leads');
     await shot(page, 'desk-mine-1280');
     expect(problems).toEqual([]);
     await desktop.close();
 
     // The region's second consultant, on a phone: the lead has left the open list.
     const phone = await browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
-    const other = await signIn(phone, second.email);
+    const other = await signInAtDesk(phone, second.email);
     const otherProblems = watchForErrors(other);
     const openHtml = await other.content();
     expect(openHtml).not.toContain(lead.reference);
-    await accessible(other, 'open leads on a phone');
+    await expectAccessible(other, 'open leads on a phone');
     await shot(other, 'desk-open-390');
     const width = await other.evaluate(() => document.documentElement.scrollWidth);
     expect(width).toBeLessThanOrEqual(390);
@@ -132,7 +116,7 @@ describe('the desk, in a browser', () => {
     const held = await other.content();
     for (const secret of contactOf(lead)) expect(held).not.toContain(secret);
     expect(held).toContain('Jabiru Thermal');
-    await accessible(other, 'a colleague’s lead on a phone');
+    await expectAccessible(other, 'a colleague’s lead on a phone');
     await shot(other, 'desk-lead-colleague-390');
     expect(otherProblems).toEqual([]);
     await phone.close();
@@ -148,7 +132,7 @@ describe('the desk, in a browser', () => {
     await Promise.all(Array.from({ length: 3 }, () => submitLead('3902')));
     for (const javaScriptEnabled of [true, false]) {
       const context = await browser.newContext({ viewport: { width: 1280, height: 900 }, javaScriptEnabled });
-      const page = await signIn(context, second.email);
+      const page = await signInAtDesk(context, second.email);
       await page.getByRole('link', { name: /^Lost a year/ }).click();
       await page.waitForURL(/sort=loss/);
       await page.locator('tbody tr').first().waitFor();

@@ -8,12 +8,11 @@
  */
 import { mkdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
-import AxeBuilder from '@axe-core/playwright';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb } from '../../src/db/client';
 import { stopSender } from '../../src/lib/jobs/queue';
-import { launchBrowser, watchForErrors } from '../support/browser';
+import { expectAccessible, launchBrowser, signInAtDesk, watchForErrors } from '../support/browser';
 import { asPerson, ensureConsultant, ensureDeskRegion, ownerCookie, passwordCookie, submitLead, TEST_PASSWORD, type SubmittedLead } from '../support/desk';
 import { waitForMessages } from '../support/fixtures';
 import { pdfText, squeeze } from '../support/reports';
@@ -25,23 +24,8 @@ let browser: Browser;
 let lead: SubmittedLead;
 let screens: string;
 
-async function accessible(page: Page, what: string): Promise<void> {
-  const results = await new AxeBuilder({ page }).analyze();
-  const serious = results.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
-  expect(serious.map((v) => `${what}: ${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`)).toEqual([]);
-}
-
 async function shot(page: Page, name: string): Promise<void> {
   await page.screenshot({ path: path.join(screens, `${name}.png`), fullPage: true });
-}
-
-async function signIn(context: BrowserContext, email: string): Promise<Page> {
-  const page = await context.newPage();
-  await page.goto(new URL('/sign-in', stack.appUrl).href);
-  await page.locator('#team-email').fill(email);
-  await page.locator('#team-password').fill(TEST_PASSWORD);
-  await Promise.all([page.waitForURL(/\/desk$/), page.locator('#team button[type=submit]').click()]);
-  return page;
 }
 
 /** A `name=value; …` cookie header as the browser's cookies for the app. */
@@ -82,7 +66,7 @@ describe('the follow-up report, in a browser', () => {
 
   it('the consultant composes from the site walk, changes a run’s thickness and price, previews and sends', async () => {
     const desktop = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await signIn(desktop, holder.email);
+    const page = await signInAtDesk(desktop, holder.email);
     const problems = watchForErrors(page);
     await page.goto(new URL(`/desk/leads/${lead.id}/report`, stack.appUrl).href, { waitUntil: 'networkidle' });
     expect(problems).toEqual([]);
@@ -109,7 +93,7 @@ describe('the follow-up report, in a browser', () => {
     await page.locator('[data-save-state="saved"]').waitFor();
     await expect(water.locator('[data-run-figures]').textContent()).resolves.toMatch(/^Insulate: 50\u00a0mm /);
     expect(await water.locator('[data-run-figures]').textContent()).not.toBe(figuresBefore);
-    await accessible(page, 'composer');
+    await expectAccessible(page, 'composer');
     await shot(page, 'report-composer-1280');
 
     // The preview is the owner's page: the change, its reason and the walk it is based on.
@@ -145,7 +129,7 @@ describe('the follow-up report, in a browser', () => {
     // Reads on a phone: nothing wider than the screen but the tables that scroll in their own box.
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     expect(overflow).toBeLessThanOrEqual(0);
-    await accessible(page, 'owner report 390');
+    await expectAccessible(page, 'owner report 390');
     await shot(page, 'report-owner-390');
 
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: /PDF/ }).first().click()]);
@@ -166,7 +150,7 @@ describe('the follow-up report, in a browser', () => {
   it('the consultant sees the acceptance, by e-mail and on the report', async () => {
     await waitForMessages(holder.email, (all) => all.some((m) => m.subject.includes('wants to go ahead')));
     const desktop = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await signIn(desktop, holder.email);
+    const page = await signInAtDesk(desktop, holder.email);
     const reportId = reportUrl.split('/').pop()!;
     await page.goto(new URL(`/desk/reports/${reportId}`, stack.appUrl).href, { waitUntil: 'networkidle' });
     const answer = page.locator('[data-owner-answer="accepted"]');
