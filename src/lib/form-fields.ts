@@ -68,6 +68,12 @@ export const FORM_FIELDS = {
   'estimate.economics.horizonYears': { label: 'Years to count', unitText: years, singular: 'year', decimals: 0 },
   'estimate.economics.discountRatePercent': { label: 'Discount rate', quantity: 'percent' },
   'estimate.economics.fuelEscalationPercent': { label: 'Yearly rise in fuel price', quantity: 'percent' },
+  'estimate.areas.#.average.airTemperatureC': { label: 'Usual air temperature', quantity: 'temperature' },
+  'estimate.areas.#.average.relativeHumidityPercent': { label: 'Usual humidity', quantity: 'percent' },
+  'estimate.areas.#.average.airSpeedMPerS': { label: 'Usual air speed', quantity: 'speed' },
+  'estimate.areas.#.design.hotAirTemperatureC': { label: 'Air on the hottest day', quantity: 'temperature' },
+  'estimate.areas.#.design.wetAirTemperatureC': { label: 'Air temperature at its dampest', quantity: 'temperature' },
+  'estimate.areas.#.design.wetRelativeHumidityPercent': { label: 'Humidity at its dampest', quantity: 'percent' },
   'estimate.runs.#.lengthM': { label: 'Length', quantity: 'length', advice: { max: 'Split a run that long into several runs.' } },
   'estimate.runs.#.steamGaugePressureKPa': { label: 'Steam pressure on the gauge', quantity: 'gaugePressure' },
   'estimate.runs.#.fluidTemperatureC': { label: 'Temperature in the line', quantity: 'temperature' },
@@ -79,8 +85,7 @@ export const FORM_FIELDS = {
     advice: { max: 'A run that is all bare is 100 %; choose “Bare” for it.' },
   },
   'estimate.runs.#.current.thicknessM': { label: 'Thickness of the insulation on it', quantity: 'thickness' },
-  'estimate.runs.#.valves': { label: 'Valves', unitText: () => '', decimals: 0 },
-  'estimate.runs.#.flangePairs': { label: 'Flange pairs', unitText: () => '', decimals: 0 },
+  'estimate.runs.#.fittings.#.count': { label: 'Number fitted', unitText: () => '', decimals: 0 },
   'estimate.runs.#.proposed.thicknessM': { label: 'Proposed thickness', quantity: 'thickness' },
 } as const satisfies Record<string, FormField>;
 

@@ -96,11 +96,11 @@ describe('a first visit on a phone', () => {
     await check(page.locator('#f-estimate-runs-1-current-state-damaged'));
     await fill(page.locator('#f-estimate-runs-1-current-bareFraction'), '30');
 
-    // Run 3: glycol, outdoors across the yard.
+    // Run 3: glycol, outdoors across the yard (one pick makes the plant's outdoor area).
     await page.getByRole('button', { name: 'Add a run' }).click();
     await select(page.locator('#f-estimate-runs-2-service'), 'glycol');
     await fill(page.locator('#f-estimate-runs-2-lengthM'), '40');
-    await check(page.locator('#f-estimate-runs-2-ambient-kind-outdoor'));
+    await select(page.getByLabel('Where is this run?').nth(2), 'new:outdoors');
 
     await page.getByRole('region', { name: 'Live estimate' }).getByText(/a year now/).waitFor();
     await next('The figures for your plant');

@@ -4,6 +4,8 @@
  * rounds them (the same strings as the owner's page and the e-mails).
  */
 import { useMemo, useState, type ReactNode } from 'react';
+import { useWatch } from 'react-hook-form';
+import type { DraftValues } from './draft';
 import type { PlantResult, RunEstimate } from '../../engine';
 import { presentOptions, presentResult, type DisplayFormat, type PresentedFigure, type PresentedResult, type PresentedRun } from '../../lib/presentation';
 import type { LiveEstimate } from './store';
@@ -71,7 +73,7 @@ export function ResultsStep({ live, cautions }: Props) {
       <Savings presented={presented} />
       <Hazards presented={presented} />
       <RunTable presented={presented} />
-      <RunCards presented={presented} />
+      <RunCards presented={presented} result={result} />
       <Charts result={result} presented={presented} />
       <Notes presented={presented} />
       {cautions && <div className="results-cautions">{cautions}</div>}
@@ -164,11 +166,20 @@ function Flags({ run }: { run: PresentedRun }) {
   );
 }
 
+/** Where a run is, as the reader named it: one of their areas, or the plant's own indoor or outdoor air. */
+function placeWords(areaId: string | undefined, areas: readonly { id: string; label?: string }[] | undefined): string {
+  const area = areas?.find((a) => a.id === areaId);
+  if (area) return area.label?.trim() || area.id;
+  return areaId === 'outdoor' ? 'outdoors' : 'indoors';
+}
+
 /**
  * On a phone each run is a card with the figures that matter, in reading order; the wide
  * table below stands in for it from a laptop's width up (one of the two is shown).
  */
-function RunCards({ presented }: { presented: PresentedResult }) {
+function RunCards({ presented, result }: { presented: PresentedResult; result: PlantResult }) {
+  const areas = useWatch<DraftValues, 'estimate.areas'>({ name: 'estimate.areas' });
+  const areaOf = new Map(result.runs.map((run) => [run.id, run.areaId]));
   return (
     <section aria-labelledby="run-cards-heading" className="result-block run-cards-block">
       <h3 id="run-cards-heading" className="block-title">
@@ -180,7 +191,8 @@ function RunCards({ presented }: { presented: PresentedResult }) {
             <p className="run-result-name">{run.label}</p>
             <p className="run-result-what">
               {run.service}
-              {run.cold ? ' · cold line' : ''} · {run.length} · {run.state.toLowerCase()}
+              {run.cold ? ' · cold line' : ''} · {run.length} · {run.state.toLowerCase()} ·{' '}
+              <span className="run-result-place">{placeWords(areaOf.get(run.id), areas)}</span>
             </p>
             <dl className="run-result-figures">
               <div>

@@ -12,10 +12,13 @@ import {
   type ServiceId,
 } from '../../engine';
 import { formatQuantity, formatTemperature } from '../../lib/presentation/rounding';
+import { BARE_FINISH_CHOICES, FITTING_KIND_CHOICES } from '../../lib/presentation/pick-lists';
 import { displayUnit, formatForInput, type DisplayQuantity, type UnitSystem } from '../../lib/units-display';
 import { draftMarket, existingInsulationDefaults, pipeStandard, serviceCondition, type DraftValues } from './draft';
 import { ChoiceField, CheckField, GuessToggle, NumberField, SelectField, TextField, useHasErrorUnder, useUnitSystem, type Option } from './fields';
 import { PhotoPicker } from './PhotoPicker';
+import { FittingsList } from './FittingsList';
+import { WherePick } from './WherePick';
 import { SizeFinder } from './SizeFinder';
 
 interface Props {
@@ -81,6 +84,20 @@ function scheduleWords(standard: PipeStandard, key: string): string {
   if (standard.id === 'EN-10220' || standard.id.startsWith('DIN')) return `${key} mm wall`;
   if (standard.id.startsWith('ASTM-B88')) return `Type ${key}`;
   return /^\d/.test(key) ? `schedule ${key}` : key;
+}
+
+function pipeMaterialName(id: string | undefined): string {
+  const name = PIPE_MATERIALS.find((m) => m.id === id)?.name ?? 'steel';
+  return `for ${name.replace(/ tube$/i, '').replace(/ \(.*\)$/, '')}`;
+}
+
+/** "2 valves with bolted flanges, 1 steam trap" or "no valves or flanges counted". */
+function fittingsWords(fittings: readonly { type?: string; count?: unknown }[] | undefined): string {
+  const counted = (fittings ?? []).filter((f) => typeof f.count === 'number' && f.count > 0);
+  if (counted.length === 0) return 'no valves or flanges counted';
+  return counted
+    .map((f) => `${String(f.count)} × ${(FITTING_KIND_CHOICES.find((c) => c.value === f.type)?.label ?? String(f.type)).toLowerCase()}`)
+    .join(', ');
 }
 
 function closestSize(standard: PipeStandard, nominalInch: number | undefined): PipeSizeEntry | undefined {
@@ -159,6 +176,9 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
   const market = draftMarket(getValues('plant.countryCode'), system);
   const detailHasError = useHasErrorUnder(`${base}.pipe`);
   const pipeNow = entry && standard ? `${sizeLabel(standard, entry, system)}${pipe?.schedule && schedules.length > 1 ? `, ${scheduleWords(standard, pipe.schedule)}` : ''}` : 'not chosen yet';
+  const areas = useWatch<DraftValues, 'estimate.areas'>({ name: 'estimate.areas' });
+  const areaName = run?.areaId ? areas?.find((a) => a.id === run.areaId)?.label?.trim() || undefined : undefined;
+  const fittingsNow = fittingsWords(run?.fittings);
   const lineNow =
     service.kind === 'steam'
       ? `${formatQuantity(run?.steamGaugePressureKPa ?? service.typicalGaugePressureKPa ?? 0, 'gaugePressure', system)} steam`
@@ -206,24 +226,7 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
         <GuessToggle name={`${base}.lengthConfidence`} label="The length is a guess" />
       </div>
 
-      <ChoiceField
-        name={`${base}.ambient.kind`}
-        legend="Where it runs"
-        inline
-        options={[
-          { value: 'indoor-still', label: 'Indoors, still air' },
-          { value: 'indoor-draughty', label: 'Indoors, in a draught', note: 'near doors or fans' },
-          { value: 'outdoor', label: 'Outdoors', note: 'in the wind' },
-        ]}
-      />
-      {ambient === 'outdoor' && (
-        <NumberField
-          name={`${base}.ambient.windSpeedMPerS`}
-          optional
-          hint="Leave it empty to use the plant’s typical wind speed."
-          className="max-w-sm"
-        />
-      )}
+      <WherePick base={base} ambient={ambient} />
 
       <fieldset className="group">
         <legend className="group-legend">What it looks like today</legend>
@@ -238,6 +241,18 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
             { value: 'insulated', label: 'Lagged all along', note: 'whole and dry' },
           ]}
         />
+        {state !== 'insulated' && (
+          <SelectField
+            name={`${base}.finish`}
+            label={state === 'bare' ? 'What the bare metal looks like' : 'What the bare parts look like'}
+            emptyLabel={`Not sure: usual ${pipeMaterialName(pipe?.material).toLowerCase()}`}
+            options={BARE_FINISH_CHOICES.map((c) => ({ value: c.value, label: c.label }))}
+            hint={`Shiny metal gives off less heat than rusty or painted metal. ${BARE_FINISH_CHOICES.filter((c) => c.note)
+              .map((c) => `${c.label}: ${c.note ?? ''}.`)
+              .join(' ')}`}
+            optional
+          />
+        )}
         {state === 'damaged' && (
           <div className="field-with-guess">
             <NumberField name={`${base}.current.bareFraction`} hint="Roughly how much of it is bare: half the lagging missing is 50 %." />
@@ -254,7 +269,7 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
       <details className="group run-more" open={detailHasError || undefined}>
         <summary className="group-legend">More about this run</summary>
         <p className="field-hint">
-          Usual values are filled in for you: {pipeNow}; {lineNow}; no valves or flanges counted. Change what you know.
+          Usual values are filled in for you: {pipeNow}; {lineNow}; {fittingsNow}. Change what you know.
         </p>
 
         <fieldset className="group">
@@ -308,6 +323,34 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
           />
         )}
 
+        {areaName ? (
+          <p className="field-hint run-air-note">
+            It runs in “{areaName}”: its air is set there, under “Areas of your plant” below the runs.
+          </p>
+        ) : (
+          <>
+            <ChoiceField
+              name={`${base}.ambient.kind`}
+              legend="The air right at this run"
+              hint="The plant’s air from the first step, unless the run is in one of your areas."
+              inline
+              options={[
+                { value: 'indoor-still', label: 'Indoors, still air' },
+                { value: 'indoor-draughty', label: 'Indoors, in a draft', note: 'near doors or fans' },
+                { value: 'outdoor', label: 'Outdoors', note: 'in the wind' },
+              ]}
+            />
+            {ambient === 'outdoor' && (
+              <NumberField
+                name={`${base}.ambient.windSpeedMPerS`}
+                optional
+                hint="Leave it empty to use the plant’s typical wind speed."
+                className="max-w-sm"
+              />
+            )}
+          </>
+        )}
+
         {state !== 'bare' && (
           <fieldset className="group">
             <legend className="group-legend">The lagging on it</legend>
@@ -315,18 +358,11 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
               <SelectField name={`${base}.current.material`} label="Insulation on it" options={insulationOptions} />
               <NumberField name={`${base}.current.thicknessM`} />
               <SelectField name={`${base}.current.jacket`} label="Its outer covering" options={jacketOptions} />
-              <CheckField name={`${base}.fittingsInsulated`} label="Its valves and flanges are lagged too" />
             </div>
           </fieldset>
         )}
 
-        <fieldset className="group">
-          <legend className="group-legend">Valves and flanges on the run</legend>
-          <div className="field-grid">
-            <NumberField name={`${base}.valves`} whole hint="Each valve body with its bonnet." />
-            <NumberField name={`${base}.flangePairs`} whole hint="A bolted joint counts as one pair." />
-          </div>
-        </fieldset>
+        <FittingsList base={base} lagged={state !== 'bare'} runTitle={title} />
 
         <details className="group proposal" open={proposalHasError || undefined}>
           <summary className="group-legend">

@@ -7,6 +7,7 @@ import { useFieldArray, useFormContext } from 'react-hook-form';
 import { draftMarket, duplicateRun, newRun, type DraftRun, type DraftValues } from './draft';
 import { dropRunPhotos, photosOfRun, setRunPhotos } from './store';
 import { RunCard } from './RunCard';
+import { AreasPanel } from './AreasPanel';
 import { useFieldError, useUnitSystem } from './fields';
 
 interface Removed {
@@ -109,6 +110,8 @@ export function RunsStep() {
       <button ref={addButton} type="button" className="btn btn-quiet add-run" onClick={add}>
         <span aria-hidden="true">+</span> Add a run
       </button>
+
+      <AreasPanel />
     </div>
   );
 }

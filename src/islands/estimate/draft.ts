@@ -4,6 +4,7 @@
  * into, and the PlantInput and assessment bodies made from it.
  */
 import {
+  AREA_PRESETS,
   FUELS,
   PIPE_STANDARDS,
   MARKETS,
@@ -18,6 +19,7 @@ import {
   type PlantInput,
   type PlantRunInput,
   type ServiceId,
+  type AreaPresetId,
 } from '../../engine';
 import { createAssessmentSchema, type CreateAssessmentInput } from '../../schemas/assessment';
 import type { UnitSystem } from '../../lib/units-display';
@@ -25,6 +27,7 @@ import type { UnitSystem } from '../../lib/units-display';
 /** The form's values: exactly what POST /api/assessments parses. */
 export type DraftValues = CreateAssessmentInput;
 export type DraftRun = PlantRunInput;
+export type DraftArea = NonNullable<PlantInput['areas']>[number];
 
 export const STEPS = [
   { id: 'plant', title: 'Plant', heading: 'Your plant' },
@@ -49,7 +52,7 @@ export function isStepId(value: unknown): value is StepId {
 export const STEP_FIELDS = {
   plant: ['plant', 'estimate.unitSystem', 'estimate.operatingHoursPerYear', 'estimate.operatingHoursConfidence', 'estimate.conditions'],
   energy: ['estimate.energy', 'estimate.economics'],
-  runs: ['estimate.runs'],
+  runs: ['estimate.runs', 'estimate.areas'],
   results: [],
   contact: ['contact', 'consent', 'website'],
 } as const satisfies Record<StepId, readonly string[]>;
@@ -233,10 +236,53 @@ export function newRun(market: MarketId, number: number, service: ServiceId = 's
     ...serviceCondition(service),
     ambient: { kind: 'indoor-still' },
     current: { state: 'bare' },
-    valves: 0,
-    flangePairs: 0,
+    fittings: [],
     proposed: { coverFittings: true },
   };
+}
+
+/** The preset of an area kind (the engine's typical air for it). */
+export function areaPreset(id: string | undefined) {
+  return AREA_PRESETS.find((p) => p.id === id);
+}
+
+/**
+ * A new area of a kind, named as the kind and with an id unique in the draft
+ * (`washdown-room`, then `washdown-room-2`); its air is left to the kind's typical values.
+ */
+export function newArea(preset: AreaPresetId, existing: readonly Pick<DraftArea, 'id' | 'label'>[]): DraftArea {
+  const ids = new Set(existing.map((a) => a.id));
+  let id: string = preset;
+  for (let n = 2; ids.has(id); n++) id = `${preset}-${n}`;
+  const name = areaPreset(preset)?.name ?? 'Area';
+  const sameName = existing.filter((a) => a.label === name || a.label?.startsWith(`${name} `)).length;
+  return { id, label: sameName > 0 ? `${name} ${sameName + 1}` : name, preset, average: {}, design: {} };
+}
+
+const isRecord = (value: unknown): value is Record<string, unknown> => typeof value === 'object' && value !== null && !Array.isArray(value);
+const countOf = (value: unknown) => (typeof value === 'number' && Number.isInteger(value) && value > 0 ? value : 0);
+
+/**
+ * A draft kept by an older version of the form, brought to today's shape: a list of areas
+ * where there was none, and the older valve and flange-pair counts (with "its valves and
+ * flanges are lagged too") moved into the run's list of fittings, which the form now offers.
+ */
+export function migrateDraft(stored: Partial<DraftValues>): Partial<DraftValues> {
+  const estimate: unknown = stored.estimate;
+  if (!isRecord(estimate)) return stored;
+  const runs = Array.isArray(estimate.runs) ? estimate.runs : [];
+  const migratedRuns = runs.map((run: unknown) => {
+    if (!isRecord(run)) return run;
+    const { valves, flangePairs, fittingsInsulated, ...rest } = run;
+    const state = isRecord(run.current) ? run.current.state : 'bare';
+    const covered = fittingsInsulated === true && state !== 'bare';
+    const fittings = Array.isArray(run.fittings) ? [...(run.fittings as unknown[])] : [];
+    if (countOf(valves) > 0) fittings.push({ type: 'valve-flanged', count: countOf(valves), covered });
+    if (countOf(flangePairs) > 0) fittings.push({ type: 'flange-pair', count: countOf(flangePairs), covered });
+    return { ...rest, fittings };
+  });
+  const areas = Array.isArray(estimate.areas) ? estimate.areas : [];
+  return { ...stored, estimate: { ...estimate, areas, runs: migratedRuns } as DraftValues['estimate'] };
 }
 
 /** A copy of a run with its own id, placed after it; photos stay with the original. */
@@ -272,6 +318,7 @@ export function freshValues(system: UnitSystem = guessUnitSystem()): DraftValues
         discountRatePercent: PLANT_DEFAULTS.economics.discountRatePercent,
         fuelEscalationPercent: PLANT_DEFAULTS.economics.fuelEscalationPercent,
       },
+      areas: [],
       runs: [newRun(market, 1)],
     },
     consent: notYetAnswered<true>(),
@@ -285,13 +332,15 @@ function withoutUndefined<T>(value: T): T {
 }
 
 /** One run as it is posted: only the condition its service takes, only the fields its state uses. */
-function runForPosting(run: DraftRun): DraftRun {
+function runForPosting(run: DraftRun, areaIds: ReadonlySet<string>): DraftRun {
   const steam = serviceDefaults(run.service).kind === 'steam';
-  const { steamGaugePressureKPa, fluidTemperatureC, ...rest } = run;
+  const { steamGaugePressureKPa, fluidTemperatureC, areaId, ...rest } = run;
   const ambient = run.ambient;
   const current = run.current;
   return {
     ...rest,
+    // An area taken off the list leaves its runs in the plant's own air.
+    ...(areaId !== undefined && areaIds.has(areaId) ? { areaId } : {}),
     ...(steam ? { steamGaugePressureKPa } : { fluidTemperatureC }),
     ...(ambient
       ? {
@@ -330,7 +379,8 @@ function runForPosting(run: DraftRun): DraftRun {
  */
 export function toPlantInput(estimate: PlantInput, countryCode?: string): PlantInput {
   const market = estimate.market ?? (countryCode ? marketForCountry(countryCode) : undefined);
-  return withoutUndefined({ ...estimate, ...(market ? { market } : {}), runs: estimate.runs.map(runForPosting) });
+  const areaIds = new Set((estimate.areas ?? []).map((area) => area.id));
+  return withoutUndefined({ ...estimate, ...(market ? { market } : {}), runs: estimate.runs.map((run) => runForPosting(run, areaIds)) });
 }
 
 /** The body of the `assessment` part: the whole draft with the estimate cleaned up. */

@@ -127,8 +127,37 @@ const rows: readonly Row[] = [
     US: [24, 'Thickness of the insulation on it must be under 19.68 in; 24 in was given.'],
     SI: [0, 'Thickness of the insulation on it must be more than 0 mm; 0 mm was given.'],
   },
-  { pattern: 'estimate.runs.#.valves', US: [-1, 'Valves cannot be negative.'], SI: [501, 'At most 500 valves per run.'] },
-  { pattern: 'estimate.runs.#.flangePairs', US: [2.5, 'Flange pairs must be a whole number.'], SI: [-2, 'Flange pairs cannot be negative.'] },
+  { pattern: 'estimate.runs.#.fittings.#.count', US: [2.5, 'Fittings must be a whole number.'], SI: [501, 'At most 500 fittings per run.'] },
+  {
+    pattern: 'estimate.areas.#.average.airTemperatureC',
+    US: [-70, 'Usual air temperature must be at least −58 °F; −70 °F was given.'],
+    SI: [61, 'Usual air temperature must be at most 60 °C; 61 °C was given.'],
+  },
+  {
+    pattern: 'estimate.areas.#.average.relativeHumidityPercent',
+    US: [120, 'Usual humidity must be at most 100 %; 120 % was given.'],
+    SI: [0, 'Usual humidity must be at least 1 %; 0 % was given.'],
+  },
+  {
+    pattern: 'estimate.areas.#.average.airSpeedMPerS',
+    US: [100, 'Usual air speed must be at most 89.4 mph; 100 mph was given.'],
+    SI: [-1, 'Usual air speed must be at least 0 m/s; −1 m/s was given.'],
+  },
+  {
+    pattern: 'estimate.areas.#.design.hotAirTemperatureC',
+    US: [150, 'Air on the hottest day must be at most 140 °F; 150 °F was given.'],
+    SI: [-51, 'Air on the hottest day must be at least −50 °C; −51 °C was given.'],
+  },
+  {
+    pattern: 'estimate.areas.#.design.wetAirTemperatureC',
+    US: [-60, 'Air temperature at its dampest must be at least −58 °F; −60 °F was given.'],
+    SI: [65, 'Air temperature at its dampest must be at most 60 °C; 65 °C was given.'],
+  },
+  {
+    pattern: 'estimate.areas.#.design.wetRelativeHumidityPercent',
+    US: [101, 'Humidity at its dampest must be at most 100 %; 101 % was given.'],
+    SI: [0.5, 'Humidity at its dampest must be at least 1 %; 0.5 % was given.'],
+  },
   {
     pattern: 'estimate.runs.#.proposed.thicknessM',
     US: [-1, 'Proposed thickness must be more than 0 in; −1 in was given.'],
@@ -150,6 +179,11 @@ function draftWith(pattern: string, system: UnitSystem): DraftValues {
   }
   if (pattern.endsWith('ambient.windSpeedMPerS')) run.ambient = { kind: 'outdoor' };
   if (pattern.endsWith('ambient.airSpeedMPerS')) run.ambient = { kind: 'indoor-draughty' };
+  if (pattern.includes('.fittings.')) run.fittings = [{ type: 'valve-flanged', count: 2, covered: false }];
+  if (pattern.startsWith('estimate.areas.')) {
+    values.estimate.areas = [{ id: 'boiler-room', label: 'Boiler room', preset: 'boiler-room', average: {}, design: {} }];
+    run.areaId = 'boiler-room';
+  }
   return values;
 }
 
@@ -176,7 +210,7 @@ describe('every number field of the estimate form is refused in its own words an
     for (const system of ['US', 'SI'] as const) {
       const [typed, says] = row[system];
       it(`${row.pattern} in ${system}: ${typed} → “${says}”`, () => {
-        const path = row.pattern.replace('#', '0');
+        const path = row.pattern.replaceAll('#', '0');
         const values = draftWith(row.pattern, system);
         typeInto(values, path, typed, system);
         const errors = fieldErrorsOf(values);

@@ -234,10 +234,18 @@ export interface Option {
   readonly label: string;
 }
 
+/** Options under a heading, drawn as an <optgroup>. */
+export interface OptionGroup {
+  readonly label: string;
+  readonly options: readonly Option[];
+}
+
 interface SelectFieldProps {
   name: Name;
   label: string;
-  options: readonly Option[];
+  options?: readonly Option[];
+  /** Options in groups (after any ungrouped `options`). */
+  groups?: readonly OptionGroup[];
   hint?: ReactNode;
   optional?: boolean;
   /** First option with an empty value: nothing chosen yet, or "leave it to the engine". */
@@ -251,7 +259,7 @@ interface SelectFieldProps {
  * A drop-down bound to the form's value (not only to the DOM), so a value set in code — the
  * usual schedule after a change of standard — shows at once, even when its option is new.
  */
-export function SelectField({ name, label, options, hint, optional, emptyLabel, onChosen, className }: SelectFieldProps) {
+export function SelectField({ name, label, options = [], groups = [], hint, optional, emptyLabel, onChosen, className }: SelectFieldProps) {
   const { field } = useController<DraftValues>({ name });
   const error = useFieldError(name);
   const id = fieldId(name);
@@ -278,6 +286,15 @@ export function SelectField({ name, label, options, hint, optional, emptyLabel, 
           <option key={option.value} value={option.value}>
             {option.label}
           </option>
+        ))}
+        {groups.map((group) => (
+          <optgroup key={group.label} label={group.label}>
+            {group.options.map((option) => (
+              <option key={option.value} value={option.value}>
+                {option.label}
+              </option>
+            ))}
+          </optgroup>
         ))}
       </select>
     </FieldFrame>

@@ -11,6 +11,7 @@ import { MAX_PHOTO_BYTES, MAX_PHOTOS, PHOTO_FIELD } from '../../schemas/assessme
 import {
   freshValues,
   isStepId,
+  migrateDraft,
   newIdempotencyKey,
   toAssessmentInput,
   type DraftValues,
@@ -22,7 +23,7 @@ const KEY = 'lagwise:estimate:v1:';
 function decodeValues(encoded: string): Partial<DraftValues> {
   try {
     const value: unknown = JSON.parse(encoded);
-    if (typeof value === 'object' && value !== null && 'estimate' in value) return value as Partial<DraftValues>;
+    if (typeof value === 'object' && value !== null && 'estimate' in value) return migrateDraft(value as Partial<DraftValues>);
   } catch {
     // A damaged entry is dropped: the person starts a fresh draft rather than a broken one.
   }

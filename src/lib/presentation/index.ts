@@ -8,7 +8,7 @@
  * - {@link displayFormat}: the formatters behind it, for anything a layout adds (a chart axis).
  * - ./rounding: the one rounding rule and the small formatters a form's hints need
  *   (formatNumber, formatQuantity, formatTemperature); ./money: money alone (lists).
- * - The word tables for the engine's ids.
+ * - The word tables for the engine's ids, and the pick-lists every form offers (./pick-lists).
  */
 export { presentResult, type PresentedHazard, type PresentedNotice, type PresentedResult, type PresentedRun } from './present';
 export { headlineFor, presentHeadline, type PresentedFigure, type PresentedHeadline } from './headline';
@@ -26,6 +26,16 @@ export {
   ROUNDING,
   type FormattedRange,
 } from './rounding';
+export {
+  AREA_KIND_CHOICES,
+  BARE_FINISH_CHOICES,
+  FITTING_KIND_CHOICES,
+  JACKET_CHOICES,
+  JACKET_GROUPS,
+  choiceLabel,
+  type PickChoice,
+  type PickGroup,
+} from './pick-lists';
 export {
   HAZARD_FLAGS,
   MATERIAL_WORDS,
