@@ -1,4 +1,4 @@
-import { annualCostOf, annualFigures, addFigures, ZERO_FIGURES, type AnnualFigures, type Rates } from './annual-figures';
+import { addFigures, annualFigures, ZERO_FIGURES, type AnnualFigures, type Rates } from './annual-figures';
 import { findInsulationMaterial, findSurface } from './catalogue';
 import { runConditions, type AirState, type RunConditions } from './conditions';
 import { c585ActualThicknessM } from './data/c585';
@@ -11,23 +11,31 @@ import { EngineError } from './errors';
 import { walkStockSeries, type SeriesPoint } from './least-thickness';
 import { LAGGING_CONDITIONS, type LaggingConditionId } from './data/lagging-condition';
 import { interpretMeasurements, type MeasurementReading } from './measurements';
-import type { OptionKind, ParsedPlantInput, ParsedPlantRun } from './plant-input';
-import type {
-  ChoiceReason,
-  FaceProfile,
-  InputNotice,
-  ResultDetail,
-  RunEstimate,
-  RunOption,
-  ThicknessOption,
-} from './plant-result';
+import type { ParsedPlantInput, ParsedPlantRun } from './plant-input';
+import type { FaceProfile, InputNotice, ResultDetail, RunEstimate, RunOption, ThicknessOption } from './plant-result';
 import { vapourPressureKPa } from './psychrometrics';
 import type { ParsedRunInput } from './run-input';
-import { prepareRun, type PreparedRun, type RunWarning } from './run';
+import { prepareRun, type PreparedRun } from './run';
+import { hazardsToday, noStockMeetsNeed, type NoStock } from './run-hazards';
+import { measurementNotices, plausibilityNotices } from './run-notices';
+import {
+  addBestOfSeries,
+  addOption,
+  annualCostOfBilled,
+  billedW,
+  chooseOption,
+  meetsNeed,
+  pricePerMetre,
+  scaleToTypedPrice,
+  worseSurface,
+  wrongWayW,
+  type OptionBasis,
+  type SeriesEntry,
+  type SolvedState,
+  type WeighedOption,
+} from './run-options';
 import { solveLean, solveResolvedRun, type CoreSolution, type ResolvedLayer, type ResolvedRun } from './run-solver';
-import { formatNumber } from './schema-helpers';
-import { saturationTemperatureC } from './steam-properties';
-import { serviceDefaults } from './services';
+import { serviceDefaults, type ServiceDefaults } from './services';
 import { CONFIDENCE_SPREADS, type Confidence } from './uncertainty';
 
 /** What a plant estimate shares with each of its runs. */
@@ -83,25 +91,11 @@ export interface SampleTerms {
 export interface RunOutcome {
   readonly estimate: RunEstimate;
   readonly terms: SampleTerms;
-  readonly noStock: { readonly need: 'touch' | 'dew'; readonly message: string } | null;
-}
-
-interface SolvedState {
-  /** Signed W/m (positive out of the line). */
-  readonly wPerM: number;
-  readonly surfaceC: number;
+  readonly noStock: NoStock | null;
 }
 
 type MutableRun = { -readonly [K in keyof ResolvedRun]: ResolvedRun[K] };
 type MutableLayer = { -readonly [K in keyof ResolvedLayer]: ResolvedLayer[K] };
-
-/** A stock thickness of an option's series, in the shape the options are built from. */
-interface SeriesEntry {
-  readonly t: number;
-  readonly avg: SolvedState;
-  readonly design: SolvedState | null;
-  readonly meets: boolean;
-}
 
 /** A walked point as a series entry, its loss scaled by the insulation's condition factor where one applies. */
 function toSeriesEntry(factor: number): (p: SeriesPoint) => SeriesEntry {
@@ -117,16 +111,6 @@ function toSeriesEntry(factor: number): (p: SeriesPoint) => SeriesEntry {
 const AIR_SPREAD_K: Readonly<Record<Confidence, number>> = { measured: 0.5, estimated: 2, guessed: 5 };
 /** Emittance spread of the range: a finish named ±0.1, left to the material's usual one ±0.2 — common practice. */
 const EMITTANCE_SPREAD = { given: 0.1, assumed: 0.2 } as const;
-/** A bare steam reading this far under saturation points at a fault or a false reading (method.md). */
-const SATURATION_SHORTFALL_K = 5;
-/** A measured insulated surface is trusted for a condition factor only this far from the air (method.md). */
-const CONDITION_FACTOR_MIN_DIFFERENCE_K = 10;
-const RUN_LENGTH_NOTICE_M = 1000;
-const MANY_VALVES = 50;
-const GLYCOL_NOTICE_C = 60;
-/** Usual gauge pressure of a hot-water main when none is given, kPa — common practice. */
-const TYPICAL_LIQUID_GAUGE_KPA = 300;
-
 function materialOrFail(id: string): InsulationMaterial {
   const material = findInsulationMaterial(id);
   if (!material) throw new EngineError('UNKNOWN_MATERIAL', `Unknown insulation material "${id}".`);
@@ -177,63 +161,28 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   const lengthConfidence: Confidence = run.measurements?.lengthM !== undefined ? 'measured' : run.lengthConfidence;
 
   const steamGauge = service.kind === 'steam' ? (run.steamGaugePressureKPa ?? (service.typicalGaugePressureKPa as number)) : undefined;
-  const runInput: ParsedRunInput = {
-    pipe: run.pipe,
-    ...(steamGauge !== undefined
-      ? { steam: { gaugePressureKPa: steamGauge, atmosphericPressureKPa: ctx.atmosphereKPa } }
-      : { fluidTemperatureC: run.fluidTemperatureC ?? service.typicalTemperatureC }),
-    ...(service.liquid ? { fluid: { kind: service.liquid, velocityMPerS: run.velocityMPerS ?? service.typicalVelocityMPerS } } : {}),
-    ambientTemperatureC: avg.temperatureC,
-    windSpeedMPerS: avg.speedMPerS,
-    orientation: run.orientation,
-    runHeightM: run.runHeightM ?? 3,
-    runLengthM: lengthM,
-    relativeHumidityPercent: avg.relativeHumidityPercent,
-    ...(run.finish !== undefined ? { surface: run.finish } : {}),
-    insulation: [],
-    touchLimitC,
-  };
-  let prepared: PreparedRun = prepareRun(runInput);
+  let prepared: PreparedRun = prepareRun(bareRunInput(run, ctx, service, cond, lengthM, steamGauge));
   const bareEmittance = prepared.resolved.surfaceEmittance;
   const steamSaturationC = prepared.steam ? prepared.steam.saturationTemperatureC : null;
 
   // Site readings: a bare reading sets the line temperature; an insulated one the condition factor.
   const reading: MeasurementReading | null = interpretMeasurements(run, prepared, bareEmittance, run.current.state === 'insulated' ? currentLayers(run) : null);
-  if (reading?.lineTemperatureC !== null && reading?.lineTemperatureC !== undefined) {
+  if (reading !== null && reading.lineTemperatureC !== null) {
     prepared = { ...prepared, resolved: { ...prepared.resolved, fluidTemperatureC: reading.lineTemperatureC } };
-    if (steamSaturationC !== null && reading.lineTemperatureC < steamSaturationC - SATURATION_SHORTFALL_K) {
-      notices.push({
-        code: 'MEASURED_BELOW_SATURATION',
-        path: `runs.${run.id}.measurements.surfaceTemperatureC`,
-        message: `The bare steam line reads about ${formatNumber(Math.round(reading.lineTemperatureC))} °C, more than ${SATURATION_SHORTFALL_K} K under the ${formatNumber(Math.round(steamSaturationC))} °C of saturated steam at the stated pressure: the line may run only part of the time, hold condensate, have a wrong gauge, or a shiny surface may have misled an infrared reading.`,
-        params: { quantity: 'temperature', givenSI: reading.lineTemperatureC, limitSI: steamSaturationC - SATURATION_SHORTFALL_K, limit: 'min' },
-      });
-    }
   }
-  if (reading && reading.closeToAir) {
-    notices.push({
-      code: 'MEASURED_CLOSE_TO_AIR',
-      path: `runs.${run.id}.measurements.surfaceTemperatureC`,
-      message: `The insulated surface reads within ${CONDITION_FACTOR_MIN_DIFFERENCE_K} K of the air, too close to judge the insulation's condition from; the catalogue figure is kept.`,
-    });
-  }
+  measurementNotices(run, reading, steamSaturationC, notices);
   const base = prepared.resolved;
   const fluidC = base.fluidTemperatureC;
   const cold = service.cold;
-  const sign = cold ? -1 : 1;
   const rates = cold ? ctx.coldRates : ctx.hotRates;
   const hours = run.operatingHoursPerYear ?? plant.operatingHoursPerYear;
   const latent = prepared.steam ? prepared.steam.latentHeatJPerKg : null;
-  const billed = (wPerM: number) => Math.max(0, sign * wPerM);
-  const wrongWay = (wPerM: number) => Math.max(0, -sign * wPerM);
 
   // Safety needs at design air (the service decides hot or cold).
   const burnNeed = !cold && fluidC > touchLimitC;
   const sweatNeed = cold && fluidC < cond.designWet.dewPointC + marginK;
   const dewLimitC = cond.designWet.dewPointC + marginK;
   const designAir: AirState | null = burnNeed ? cond.designHot : sweatNeed ? cond.designWet : null;
-  const meets = (surfaceC: number) => (burnNeed ? surfaceC <= touchLimitC : sweatNeed ? surfaceC >= dewLimitC : true);
-  const worse = (a: number, b: number) => (cold ? Math.min(a, b) : Math.max(a, b));
 
   // Bare pipe.
   // Lean solves for the figures; the full solve (profiles, resistances) only where a full answer shows it.
@@ -245,317 +194,134 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   const bareLatentWPerM = bareLean.latentGainWPerM;
   const bareDesign = designAir ? lean(withAir(base, designAir, [], bareEmittance)) : bareAvg;
 
-  // Fittings at the run's size.
-  const fittingItems: { type: FittingTypeId; count: number; covered: boolean }[] = [
-    ...(run.valves > 0 ? [{ type: 'valve-flanged' as const, count: run.valves, covered: run.fittingsInsulated && run.current.state !== 'bare' }] : []),
-    ...(run.flangePairs > 0 ? [{ type: 'flange-pair' as const, count: run.flangePairs, covered: run.fittingsInsulated && run.current.state !== 'bare' }] : []),
-    ...run.fittings.map((f) => ({ type: f.type, count: f.count, covered: f.covered && run.current.state !== 'bare' })),
-  ];
-  let fitBareEqL = 0;
-  let fitCoveredEqL = 0;
-  let uncoveredCount = 0;
-  for (const item of fittingItems) {
-    const eq = item.count * fittingEquivalentLengthM(item.type, base.pipeOuterDiameterM);
-    if (item.covered) fitCoveredEqL += eq;
-    else {
-      fitBareEqL += eq;
-      uncoveredCount += item.count;
-    }
-  }
-  const fitEqL = fitBareEqL + fitCoveredEqL;
+  const fittings = fittingsOf(run, base.pipeOuterDiameterM);
+  const { bareEqL: fitBareEqL, eqL: fitEqL, uncoveredCount } = fittings;
 
-  // Today.
-  const state = run.current.state;
-  const bareFraction = state === 'bare' ? 1 : state === 'damaged' ? run.current.bareFraction : 0;
-  let existing: { material: InsulationMaterial; thicknessM: number; jacket: string; emittance: number; layers: ResolvedLayer[] } | null = null;
-  let currentIns: SolvedState | null = null;
-  let currentInsDesign: SolvedState | null = null;
-  let currentInsRun: ResolvedRun | null = null;
-  let currentInsFull: CoreSolution | null = null;
-  const conditionFactor = reading?.conditionFactor ?? 1;
-  if (run.current.state !== 'bare') {
-    const material = materialOrFail(run.current.material);
-    const layers = [laggingInPlace(material, run.current.thicknessM, run.current.condition)];
-    const emittance = emittanceOf(run.current.jacket);
-    existing = { material, thicknessM: run.current.thicknessM, jacket: run.current.jacket, emittance, layers };
-    currentInsRun = { ...base, layers, surfaceEmittance: emittance };
-    currentInsFull = ctx.detail === 'full' ? solveResolvedRun(currentInsRun) : null;
-    const solved = currentInsFull ? { wPerM: currentInsFull.heatLossWPerM, surfaceC: currentInsFull.surfaceTemperatureC } : lean(currentInsRun);
-    currentIns = { wPerM: solved.wPerM * conditionFactor, surfaceC: solved.surfaceC };
-    currentInsDesign = designAir ? lean(withAir(base, designAir, layers, emittance)) : currentIns;
-  }
-  const insW = currentIns ? currentIns.wPerM : bareAvg.wPerM;
-  const currentSignedWPerM = bareFraction * bareAvg.wPerM + (1 - bareFraction) * insW;
-  const fittingsCoveredToday = currentIns ? currentIns.wPerM : bareAvg.wPerM;
-  const currentBilledW = lengthM * (bareFraction * billed(bareAvg.wPerM) + (1 - bareFraction) * billed(insW)) + fitBareEqL * billed(bareAvg.wPerM) + fitCoveredEqL * billed(fittingsCoveredToday);
-  const currentWrongW = lengthM * (bareFraction * wrongWay(bareAvg.wPerM) + (1 - bareFraction) * wrongWay(insW)) + fitBareEqL * wrongWay(bareAvg.wPerM) + fitCoveredEqL * wrongWay(fittingsCoveredToday);
-  const currentLatentW = lengthM * bareFraction * bareLatentWPerM + fitBareEqL * bareLatentWPerM;
-  const currentFigures = annualFigures(currentBilledW, hours, rates, fuel, latent);
-  const currentHasBare = bareFraction > 0 || fitBareEqL > 0;
-  const currentDesignSurfaceC = currentHasBare ? (currentInsDesign ? worse(bareDesign.surfaceC, currentInsDesign.surfaceC) : bareDesign.surfaceC) : (currentInsDesign as SolvedState).surfaceC;
-  const currentAvgSurfaceC = currentHasBare || !currentIns ? bareAvg.surfaceC : currentIns.surfaceC;
-
-  // Hazards today.
-  const hazards: RunWarning[] = [];
-  if (bareFraction === 0 && currentInsRun) {
-    if (burnNeed && (currentInsDesign as SolvedState).surfaceC > touchLimitC) {
-      hazards.push({ code: 'SURFACE_ABOVE_TOUCH_LIMIT', message: `On the hottest day the insulated surface reaches about ${Math.round((currentInsDesign as SolvedState).surfaceC)} °C, above the ${touchLimitC} °C touch limit (ASTM C1055 basis): it can burn on contact.` });
-    }
-    if (sweatNeed && (currentInsDesign as SolvedState).surfaceC < cond.designWet.dewPointC) {
-      hazards.push({ code: 'SURFACE_BELOW_DEW_POINT', message: `In the wettest hour the insulated surface falls to about ${formatNumber(Math.round((currentInsDesign as SolvedState).surfaceC * 10) / 10)} °C, below the ${formatNumber(Math.round(cond.designWet.dewPointC * 10) / 10)} °C dew point: it will sweat.` });
-    }
-  } else if (bareFraction > 0) {
-    if (burnNeed && bareDesign.surfaceC > touchLimitC) {
-      hazards.push({ code: 'SURFACE_ABOVE_TOUCH_LIMIT', message: `The bare pipe runs at about ${Math.round(bareDesign.surfaceC)} °C, above the ${touchLimitC} °C touch limit (ASTM C1055 basis): it can burn on contact.` });
-    }
-    if (sweatNeed && bareDesign.surfaceC < cond.designWet.dewPointC) {
-      hazards.push({ code: 'SURFACE_BELOW_DEW_POINT', message: `The bare pipe runs at about ${formatNumber(Math.round(bareDesign.surfaceC * 10) / 10)} °C, below the ${formatNumber(Math.round(cond.designWet.dewPointC * 10) / 10)} °C dew point of the wettest hour: it will sweat or frost.` });
-    }
-  }
-  if (uncoveredCount > 0 && burnNeed && bareDesign.surfaceC > touchLimitC) {
-    hazards.push({ code: 'BARE_FITTINGS_ABOVE_TOUCH_LIMIT', message: `${uncoveredCount} bare fitting${uncoveredCount === 1 ? '' : 's'} on this line run at about ${Math.round(bareDesign.surfaceC)} °C, above the ${touchLimitC} °C touch limit: removable covers would stop burns.` });
-  }
-  if (uncoveredCount > 0 && sweatNeed && bareDesign.surfaceC < cond.designWet.dewPointC) {
-    hazards.push({ code: 'BARE_FITTINGS_BELOW_DEW_POINT', message: `${uncoveredCount} bare fitting${uncoveredCount === 1 ? '' : 's'} on this line sit at about ${formatNumber(Math.round(bareDesign.surfaceC * 10) / 10)} °C, below the ${formatNumber(Math.round(cond.designWet.dewPointC * 10) / 10)} °C dew point: they will drip onto whatever is below; removable covers with a vapour retarder stop it.` });
-  }
-
-  // Prices.
+  // Prices of the proposal.
   const proposal = run.proposed;
   const material = materialOrFail(proposal.material ?? service.defaultInsulation);
   const jacket = proposal.jacket ?? service.defaultJacket;
   const jacketEmittance = emittanceOf(jacket);
   const coverFittings = proposal.coverFittings;
-  const priceAt = (thicknessM: number) => installedCostPerMetre(ctx.table, base.pipeOuterDiameterM, thicknessM) * material.installedCostFactor;
   const coverEach = proposal.price?.coverEach ?? fittingCoverCost(ctx.table, base.pipeOuterDiameterM);
   const pwf = ctx.pwf;
-  const annualCostOfBilledW = (w: number) => annualCostOf(w, hours, rates);
+
+  // Today.
+  const state = run.current.state;
+  const bareFraction = state === 'bare' ? 1 : state === 'damaged' ? run.current.bareFraction : 0;
+  let existing: ExistingLagging | null = null;
+  let currentIns: SolvedState | null = null;
+  let currentInsDesign: SolvedState | null = null;
+  let currentInsFull: CoreSolution | null = null;
+  const conditionFactor = reading?.conditionFactor ?? 1;
+  if (run.current.state !== 'bare') {
+    const lagging = materialOrFail(run.current.material);
+    const layers = [laggingInPlace(lagging, run.current.thicknessM, run.current.condition)];
+    const emittance = emittanceOf(run.current.jacket);
+    existing = { material: lagging, thicknessM: run.current.thicknessM, jacket: run.current.jacket, emittance, layers };
+    const currentInsRun: ResolvedRun = { ...base, layers, surfaceEmittance: emittance };
+    currentInsFull = ctx.detail === 'full' ? solveResolvedRun(currentInsRun) : null;
+    const solved = currentInsFull ? { wPerM: currentInsFull.heatLossWPerM, surfaceC: currentInsFull.surfaceTemperatureC } : lean(currentInsRun);
+    currentIns = { wPerM: solved.wPerM * conditionFactor, surfaceC: solved.surfaceC };
+    currentInsDesign = designAir ? lean(withAir(base, designAir, layers, emittance)) : currentIns;
+  }
+  const basisWithoutToday = {
+    cold,
+    lengthM,
+    hours,
+    rates,
+    fuel,
+    latentHeatJPerKg: latent,
+    presentWorthFactor: pwf,
+    bareWPerM: bareAvg.wPerM,
+    bareDesignC: bareDesign.surfaceC,
+    fitBareEqL,
+    fitEqL,
+    uncoveredCount,
+    coverFittings,
+    coverEach,
+    burnNeed,
+    sweatNeed,
+    touchLimitC,
+    dewLimitC,
+    currentAnnualCost: 0,
+    table: ctx.table,
+    pipeOuterDiameterM: base.pipeOuterDiameterM,
+  };
+  const insW = currentIns ? currentIns.wPerM : bareAvg.wPerM;
+  const currentSignedWPerM = bareFraction * bareAvg.wPerM + (1 - bareFraction) * insW;
+  const fittingsCoveredToday = currentIns ? currentIns.wPerM : bareAvg.wPerM;
+  const b0: OptionBasis = basisWithoutToday;
+  const currentBilledW = lengthM * (bareFraction * billedW(b0, bareAvg.wPerM) + (1 - bareFraction) * billedW(b0, insW)) + fitBareEqL * billedW(b0, bareAvg.wPerM) + fittings.coveredEqL * billedW(b0, fittingsCoveredToday);
+  const currentWrongW = lengthM * (bareFraction * wrongWayW(b0, bareAvg.wPerM) + (1 - bareFraction) * wrongWayW(b0, insW)) + fitBareEqL * wrongWayW(b0, bareAvg.wPerM) + fittings.coveredEqL * wrongWayW(b0, fittingsCoveredToday);
+  const currentLatentW = lengthM * bareFraction * bareLatentWPerM + fitBareEqL * bareLatentWPerM;
+  const currentFigures = annualFigures(currentBilledW, hours, rates, fuel, latent);
+  const basis: OptionBasis = { ...basisWithoutToday, currentAnnualCost: currentFigures.annualCost };
+  const currentHasBare = bareFraction > 0 || fitBareEqL > 0;
+  const currentDesignSurfaceC = currentHasBare ? (currentInsDesign ? worseSurface(basis, bareDesign.surfaceC, currentInsDesign.surfaceC) : bareDesign.surfaceC) : (currentInsDesign as SolvedState).surfaceC;
+  const currentAvgSurfaceC = currentHasBare || !currentIns ? bareAvg.surfaceC : currentIns.surfaceC;
+
+  const hazards = hazardsToday({
+    burnNeed,
+    sweatNeed,
+    touchLimitC,
+    wetDewPointC: cond.designWet.dewPointC,
+    bareFraction,
+    insulatedDesignC: currentInsDesign ? currentInsDesign.surfaceC : null,
+    bareDesignC: bareDesign.surfaceC,
+    uncoveredCount,
+  });
 
   // New insulation on bare pipe: the stock series (nominal thickness; C585 actual on the pipe for the inch series).
   const actual = (t: number) => (ctx.stockSeries === 'inch' ? c585ActualThicknessM(base.pipeOuterDiameterM, t) : t);
-  let thicknesses = stockThicknessesM(material, ctx.stockSeries);
-  if (proposal.thicknessM !== undefined) thicknesses = [proposal.thicknessM];
+  const thicknesses = proposal.thicknessM !== undefined ? [proposal.thicknessM] : stockThicknessesM(material, ctx.stockSeries);
   // In a summary answer the walk stops past the least life-cycle cost; the full answer keeps every stock thickness for its chart.
-  const fitCoversPlanned = coverFittings ? uncoveredCount : 0;
-  const seriesCost = (extraPerMetre: number, factor: number) =>
-    ctx.detail === 'summary' && proposal.thicknessM === undefined
-      ? (t: number, wPerM: number) =>
-          (priceAt(t) + extraPerMetre) * lengthM + fitCoversPlanned * coverEach + pwf * annualCostOfBilledW((lengthM + fitEqL) * billed(wPerM * factor))
-      : undefined;
-  // One scratch run at average and one at design air, re-layered per thickness: a walk's solves allocate no runs.
-  const newLayer: MutableLayer = { thicknessM: 0, curve: material.conductivity };
-  const newLayers = [newLayer];
-  const avgRun: MutableRun = { ...base, layers: newLayers, surfaceEmittance: jacketEmittance };
-  const designRun: MutableRun | null = designAir ? { ...withAir(base, designAir, newLayers, jacketEmittance) } : null;
-  const newSeries = walkStockSeries({
-    thicknessesM: thicknesses,
-    runAt: (t) => {
-      newLayer.thicknessM = actual(t);
-      avgRun.layers = newLayers;
-      return avgRun;
-    },
-    designRunAt: designRun
-      ? (t) => {
-          newLayer.thicknessM = actual(t);
-          designRun.layers = newLayers;
-          return designRun;
-        }
-      : null,
-    meets,
-    ...(seriesCost(0, 1) ? { lifeCycleCost: seriesCost(0, 1) } : {}),
-  }).map(toSeriesEntry(1));
+  const costed = ctx.detail === 'summary' && proposal.thicknessM === undefined;
+  const avgRun: MutableRun = { ...base, layers: [], surfaceEmittance: jacketEmittance };
+  const designRun: MutableRun | null = designAir ? { ...withAir(base, designAir, [], jacketEmittance) } : null;
+  const series: SeriesWalkBasis = { basis, material, thicknesses, avgRun, designRun, actual, costed };
+  const newSeries = walkSeries(series, [], 0, 1);
 
   // Adding a layer over what is there (insulated or damaged runs).
   let addSeries: SeriesEntry[] = [];
+  let repairPrice = 0;
   if (existing) {
-    const under = existing;
-    const repairPerMetre = bareFraction > 0 ? bareFraction * installedCostPerMetre(ctx.table, base.pipeOuterDiameterM, under.thicknessM) * under.material.installedCostFactor : 0;
-    const outerLayer: MutableLayer = { thicknessM: 0, curve: material.conductivity };
-    const twoLayers: ResolvedLayer[] = [...under.layers, outerLayer];
-    addSeries = walkStockSeries({
-      thicknessesM: thicknesses,
-      runAt: (t) => {
-        outerLayer.thicknessM = t;
-        avgRun.layers = twoLayers;
-        return avgRun;
-      },
-      designRunAt: designRun
-        ? (t) => {
-            outerLayer.thicknessM = t;
-            designRun.layers = twoLayers;
-            return designRun;
-          }
-        : null,
-      meets,
-      ...(seriesCost(repairPerMetre, conditionFactor) ? { lifeCycleCost: seriesCost(repairPerMetre, conditionFactor) } : {}),
-    }).map(toSeriesEntry(conditionFactor));
+    repairPrice = pricePerMetre(basis, existing.material, existing.thicknessM);
+    const repairPerMetre = bareFraction > 0 ? bareFraction * installedCostPerMetre(ctx.table, base.pipeOuterDiameterM, existing.thicknessM) * existing.material.installedCostFactor : 0;
+    addSeries = walkSeries(series, existing.layers, repairPerMetre, conditionFactor);
   }
 
   // Options.
-  const options: (Required<RunOption> & { readonly pipeWPerM: number; readonly pipeBareFraction: number; readonly fitInsulatedW: number; readonly fitBareW: number; readonly perMetrePrice: number; readonly fixedPrice: number })[] = [];
+  const options: WeighedOption[] = [];
   const fitCovers = coverFittings ? uncoveredCount : 0;
-  // Billed W of an option's pipe and fittings, and its safety at design air.
-  const optionBilledW = (pipeWPerM: number, pipeBareFraction: number, fittingsWPerM: number, coversFitted: number) => {
-    const fitBareEq = coversFitted > 0 ? 0 : fitBareEqL;
-    const fitInsulatedEq = fitEqL - fitBareEq;
-    return lengthM * ((1 - pipeBareFraction) * billed(pipeWPerM) + pipeBareFraction * billed(bareAvg.wPerM)) + fitBareEq * billed(bareAvg.wPerM) + fitInsulatedEq * billed(fittingsWPerM);
-  };
-  const meetsTouchAt = (designSurfaceC: number, meetsAll: boolean) => !burnNeed || (meetsAll && designSurfaceC <= touchLimitC);
-  const meetsDewAt = (designSurfaceC: number, meetsAll: boolean) => !sweatNeed || (meetsAll && designSurfaceC >= dewLimitC);
-  const optionFrom = (
-    kind: OptionKind,
-    spec: { material: string | null; thicknessM: number | null; jacket: string | null },
-    pipeWPerM: number,
-    pipeBareFraction: number,
-    fittingsWPerM: number,
-    coversFitted: number,
-    lengthInsulatedM: number,
-    perMetrePrice: number,
-    designSurfaceC: number,
-    meetsAll: boolean,
-  ) => {
-    const fitBareEq = coversFitted > 0 ? 0 : fitBareEqL;
-    const fitInsulatedEq = fitEqL - fitBareEq;
-    const billedW = optionBilledW(pipeWPerM, pipeBareFraction, fittingsWPerM, coversFitted);
-    const installed = perMetrePrice * lengthInsulatedM + coversFitted * coverEach;
-    const figures = annualFigures(billedW, hours, rates, fuel, latent);
-    const annualCost = figures.annualCost;
-    const saving = currentFigures.annualCost - annualCost;
-    options.push({
-      kind,
-      material: spec.material,
-      thicknessM: spec.thicknessM,
-      jacket: spec.jacket,
-      lengthInsulatedM,
-      fittingCovers: coversFitted,
-      installedCost: installed,
-      annualHeatGJ: figures.annualHeatGJ,
-      annualCost,
-      annualCo2Kg: figures.annualCo2Kg,
-      annualCostSaving: saving,
-      simplePaybackYears: kind === 'leave' ? null : simplePaybackYears(installed, saving),
-      lifeCycleCost: installed + pwf * annualCost,
-      designSurfaceTemperatureC: designSurfaceC,
-      meetsTouchLimit: meetsTouchAt(designSurfaceC, meetsAll),
-      meetsDewPoint: meetsDewAt(designSurfaceC, meetsAll),
-      pipeWPerM,
-      pipeBareFraction,
-      fitInsulatedW: fitInsulatedEq * billed(fittingsWPerM),
-      fitBareW: fitBareEq * billed(bareAvg.wPerM),
-      perMetrePrice,
-      fixedPrice: coversFitted * coverEach,
-    });
-  };
-
-  // Leave as it is.
-  {
-    const designC = currentDesignSurfaceC;
-    optionFrom('leave', { material: existing?.material.id ?? null, thicknessM: existing?.thicknessM ?? null, jacket: existing?.jacket ?? null }, insW, bareFraction, fittingsCoveredToday, 0, 0, 0, designC, meets(designC));
-    // The leave option keeps today's covered fittings as they are.
-  }
+  // Leave as it is (today's covered fittings stay as they are).
+  addOption(basis, options, 'leave', { material: existing?.material.id ?? null, thicknessM: existing?.thicknessM ?? null, jacket: existing?.jacket ?? null }, insW, bareFraction, fittingsCoveredToday, 0, 0, 0, currentDesignSurfaceC, meetsNeed(basis, currentDesignSurfaceC));
   // Repair only what is bare: the bare stretch at the existing insulation, and covers on bare fittings.
   if (existing && currentIns && currentInsDesign && (bareFraction > 0 || (uncoveredCount > 0 && coverFittings))) {
-    const designC = uncoveredCount > 0 && !coverFittings ? worse(currentInsDesign.surfaceC, bareDesign.surfaceC) : currentInsDesign.surfaceC;
-    const repairPrice = installedCostPerMetre(ctx.table, base.pipeOuterDiameterM, existing.thicknessM) * existing.material.installedCostFactor;
-    optionFrom('repair', { material: existing.material.id, thicknessM: existing.thicknessM, jacket: existing.jacket }, currentIns.wPerM, 0, currentIns.wPerM, fitCovers, bareFraction * lengthM, repairPrice, designC, meets(designC));
+    const designC = uncoveredCount > 0 && !coverFittings ? worseSurface(basis, currentInsDesign.surfaceC, bareDesign.surfaceC) : currentInsDesign.surfaceC;
+    addOption(basis, options, 'repair', { material: existing.material.id, thicknessM: existing.thicknessM, jacket: existing.jacket }, currentIns.wPerM, 0, currentIns.wPerM, fitCovers, bareFraction * lengthM, repairPrice, designC, meetsNeed(basis, designC));
   }
-  const designOf = (entry: SeriesEntry, index: number, series: SeriesEntry[]) => {
-    if (entry.design) return entry.design.surfaceC;
-    // Past the first thickness that meets the need the design surface only gets safer; report the first met.
-    for (let j = index; j >= 0; j--) if (series[j]?.design) return (series[j]?.design as SolvedState).surfaceC;
-    return entry.avg.surfaceC;
-  };
-  const coversDesign = (c: number) => (uncoveredCount > 0 && !coverFittings ? worse(c, bareDesign.surfaceC) : c);
-  /**
-   * The one option of a series: the least life-cycle cost of the thicknesses that meet the
-   * safety checks, else the thickest. Each thickness is costed in place; only the one kept
-   * becomes an option.
-   */
-  const pickBest = (series: SeriesEntry[], kind: OptionKind, perMetreAt: (thicknessM: number) => number) => {
-    let best = -1;
-    let bestCost = 0;
-    for (let i = 0; i < series.length; i++) {
-      const entry = series[i] as SeriesEntry;
-      const designC = coversDesign(designOf(entry, i, series));
-      const meetsAll = entry.meets && meets(designC);
-      if (!(meetsTouchAt(designC, meetsAll) && meetsDewAt(designC, meetsAll))) continue;
-      const installed = perMetreAt(entry.t) * lengthM + fitCovers * coverEach;
-      const lifeCycleCost = installed + pwf * annualCostOfBilledW(optionBilledW(entry.avg.wPerM, 0, entry.avg.wPerM, fitCovers));
-      if (best < 0 || lifeCycleCost < bestCost) {
-        best = i;
-        bestCost = lifeCycleCost;
-      }
-    }
-    if (best < 0) best = series.length - 1;
-    if (best < 0) return;
-    const entry = series[best] as SeriesEntry;
-    const designC = coversDesign(designOf(entry, best, series));
-    optionFrom(kind, { material: material.id, thicknessM: entry.t, jacket }, entry.avg.wPerM, 0, entry.avg.wPerM, fitCovers, lengthM, perMetreAt(entry.t), designC, entry.meets && meets(designC));
-  };
   // Insulate a bare run, or replace what is there.
-  pickBest(newSeries, state === 'bare' ? 'insulate' : 'replace', priceAt);
-  if (existing) {
-    const repairPrice = installedCostPerMetre(ctx.table, base.pipeOuterDiameterM, existing.thicknessM) * existing.material.installedCostFactor;
-    // A damaged run's bare stretch is repaired first, then the layer goes over the whole run.
-    pickBest(addSeries, 'add-layer', (t) => priceAt(t) + (bareFraction > 0 ? bareFraction * repairPrice : 0));
-  }
+  addBestOfSeries(basis, options, newSeries, state === 'bare' ? 'insulate' : 'replace', material, jacket, 0);
+  // A damaged run's bare stretch is repaired first, then the layer goes over the whole run.
+  if (existing) addBestOfSeries(basis, options, addSeries, 'add-layer', material, jacket, bareFraction > 0 ? bareFraction * repairPrice : 0);
 
-  // A typed price overrides the table: scale every option by the typed price over the table's for the proposal.
   const typed = proposal.price;
-  const scaleOptions = (reference: (typeof options)[number]) => {
-    if (!typed || reference.kind === 'leave') return;
-    const tableCost = reference.installedCost;
-    const typedCost =
-      typed.lumpSum !== undefined ? typed.lumpSum : typed.perMetre !== undefined ? typed.perMetre * reference.lengthInsulatedM + reference.fixedPrice : tableCost;
-    const ratio = tableCost > 0 ? typedCost / tableCost : 1;
-    for (let i = 0; i < options.length; i++) {
-      const o = options[i] as (typeof options)[number];
-      if (o.kind === 'leave') continue;
-      const installed = o === reference ? typedCost : o.installedCost * ratio;
-      options[i] = { ...o, installedCost: installed, lifeCycleCost: installed + pwf * o.annualCost, simplePaybackYears: simplePaybackYears(installed, o.annualCostSaving) };
-    }
-  };
-
-  const choose = (): { chosen: (typeof options)[number]; reason: ChoiceReason } => {
-    if (proposal.option !== undefined) {
-      const forced = options.find((o) => o.kind === proposal.option);
-      if (forced) return { chosen: forced, reason: { code: 'FORCED', message: `${optionName(forced.kind)} was chosen for this run by hand; the other options are shown beside it.` } };
-    }
-    const safe = options.filter((o) => o.meetsTouchLimit && o.meetsDewPoint);
-    const cheapest = (list: typeof options) => list.reduce((a, b) => (b.lifeCycleCost < a.lifeCycleCost ? b : a));
-    if (safe.length === 0) {
-      const best = options.reduce((a, b) => (cold ? (b.designSurfaceTemperatureC > a.designSurfaceTemperatureC ? b : a) : b.designSurfaceTemperatureC < a.designSurfaceTemperatureC ? b : a));
-      return { chosen: best, reason: { code: 'NO_OPTION_MEETS_SAFETY', message: `No option in stock meets the ${burnNeed ? 'touch limit' : 'dew point'} on this run; ${optionName(best.kind).toLowerCase()} comes closest.` } };
-    }
-    const chosen = cheapest(safe);
-    const overall = cheapest(options);
-    if (chosen.kind === 'leave') {
-      const worthy = options.length > 1;
-      return { chosen, reason: { code: 'NOTHING_PAYS', message: worthy ? 'Left as it is: no work on this run pays for itself over the horizon, and it meets the safety checks as it stands.' : 'Left as it is.' } };
-    }
-    if (overall.kind === 'leave' && !(overall.meetsTouchLimit && overall.meetsDewPoint)) {
-      return { chosen, reason: { code: 'SAFETY_ONLY', message: `${optionName(chosen.kind)} is for safety: as it stands the run ${burnNeed ? 'can burn on contact' : 'sweats'}, but the work does not pay for itself in energy over the horizon.` } };
-    }
-    return { chosen, reason: { code: 'LEAST_LIFE_CYCLE_COST', message: `${optionName(chosen.kind)} costs least over the horizon of the options that meet the safety checks.` } };
-  };
-  let { chosen, reason } = choose();
+  let { chosen, reason } = chooseOption(basis, options, proposal.option);
   if (typed && chosen.kind !== 'leave') {
-    scaleOptions(chosen);
-    ({ chosen, reason } = choose());
+    scaleToTypedPrice(basis, options, chosen, typed);
+    ({ chosen, reason } = chooseOption(basis, options, proposal.option));
   }
 
   // Plain words where nothing in stock meets a need.
-  let noStock: RunOutcome['noStock'] = null;
-  if ((burnNeed || sweatNeed) && !options.some((o) => o.kind !== 'leave' && o.meetsTouchLimit && o.meetsDewPoint) && !(options[0]?.meetsTouchLimit && options[0]?.meetsDewPoint)) {
-    const thickest = newSeries[newSeries.length - 1];
-    const thickestC = thickest?.design?.surfaceC ?? thickest?.avg.surfaceC ?? bareDesign.surfaceC;
-    noStock = burnNeed
-      ? { need: 'touch', message: `Run "${run.label}": no stock thickness of ${material.name.toLowerCase()} keeps the surface at or under the ${touchLimitC} °C touch limit on the hottest day; the thickest (${formatNumber(Math.round((thickest?.t ?? 0) * 1000))} mm) leaves it at about ${Math.round(thickestC)} °C, ${formatNumber(Math.round((thickestC - touchLimitC) * 10) / 10)} K over. Guard the line or choose another material.` }
-      : { need: 'dew', message: `Run "${run.label}": no stock thickness of ${material.name.toLowerCase()} keeps the surface above the ${formatNumber(Math.round(cond.designWet.dewPointC * 10) / 10)} °C dew point (+${marginK} K) in the wettest hour; the thickest (${formatNumber(Math.round((thickest?.t ?? 0) * 1000))} mm) leaves it at about ${formatNumber(Math.round(thickestC * 10) / 10)} °C, ${formatNumber(Math.round((dewLimitC - thickestC) * 10) / 10)} K short. Dry the room's air or choose a better material.` };
-  }
+  const noStock: NoStock | null =
+    (burnNeed || sweatNeed) && !options.some((o) => o.kind !== 'leave' && o.meetsTouchLimit && o.meetsDewPoint) && !(options[0]?.meetsTouchLimit && options[0]?.meetsDewPoint)
+      ? noStockMeetsNeed(run.label, material, newSeries, bareDesign.surfaceC, { burnNeed, touchLimitC, wetDewPointC: cond.designWet.dewPointC, marginK, dewLimitC })
+      : null;
 
   // Figures of the chosen option.
   const proposedFigures = annualFigures(
-    lengthM * ((1 - chosen.pipeBareFraction) * billed(chosen.pipeWPerM) + chosen.pipeBareFraction * billed(bareAvg.wPerM)) + chosen.fitBareW + chosen.fitInsulatedW,
+    lengthM * ((1 - chosen.pipeBareFraction) * billedW(basis, chosen.pipeWPerM) + chosen.pipeBareFraction * billedW(basis, bareAvg.wPerM)) + chosen.fitBareW + chosen.fitInsulatedW,
     hours,
     rates,
     fuel,
@@ -589,118 +355,34 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   }
 
   // The series shown for the proposed material, and the least thicknesses for safety.
-  const seriesOut: ThicknessOption[] = newSeries.map((e) => {
-    const installed = priceAt(e.t) * lengthM + fitCovers * coverEach;
-    const fitW = fitEqL * billed(e.avg.wPerM);
-    return {
-      thicknessM: e.t,
-      actualThicknessM: actual(e.t),
-      heatLossWPerM: e.avg.wPerM,
-      surfaceTemperatureC: e.avg.surfaceC,
-      installedCost: installed,
-      lifeCycleCost: installed + pwf * annualCostOfBilledW(lengthM * billed(e.avg.wPerM) + fitW),
-    };
-  });
+  const seriesOut = thicknessSeriesOut(basis, newSeries, material, fitCovers, actual);
   let economic: ThicknessOption | undefined;
   for (const o of seriesOut) if (!economic || o.lifeCycleCost < economic.lifeCycleCost) economic = o;
   const leastMeeting = newSeries.find((e) => e.meets && e.design !== null) ?? (designAir ? newSeries.find((e) => e.meets) : undefined);
 
-  // Plausibility notices at the field.
-  const at = (field: string) => `runs.${plant.runs.indexOf(run)}.${field}`;
-  if (lengthM > RUN_LENGTH_NOTICE_M) {
-    notices.push({ code: 'RUN_LONGER_THAN_1_KM', path: at('lengthM'), message: `Run "${run.label}" is over 1 km long (${formatNumber(Math.round(lengthM))} m); a small plant's runs are usually far shorter — check the length and its unit.`, params: { quantity: 'length', limit: 'max', limitSI: RUN_LENGTH_NOTICE_M, givenSI: lengthM } });
-  }
-  const valveCount = run.valves + run.fittings.filter((f) => f.type === 'valve-flanged' || f.type === 'valve-screwed').reduce((n, f) => n + f.count, 0);
-  if (valveCount > MANY_VALVES) {
-    notices.push({ code: 'MANY_VALVES', path: at('valves'), message: `Run "${run.label}" lists ${valveCount} valves; more than ${MANY_VALVES} on one run is unusual — check the count.`, params: { quantity: 'count', limit: 'max', limitSI: MANY_VALVES, givenSI: valveCount } });
-  }
-  if (service.kind === 'liquid' && !cold && service.liquid === 'water') {
-    const gauge = run.liquidGaugePressureKPa ?? TYPICAL_LIQUID_GAUGE_KPA;
-    const boilingC = saturationTemperatureC(Math.max(gauge + ctx.atmosphereKPa, 1));
-    if (fluidC > boilingC) {
-      notices.push({ code: 'HOT_WATER_ABOVE_BOILING', path: at('fluidTemperatureC'), message: `Run "${run.label}" carries water at ${formatNumber(Math.round(fluidC))} °C, above its boiling point of about ${formatNumber(Math.round(boilingC))} °C at ${formatNumber(Math.round(gauge))} kPa gauge — it would flash to steam. Check the temperature or give the line's pressure.`, params: { quantity: 'temperature', limit: 'max', limitSI: boilingC, givenSI: fluidC } });
-    }
-  }
-  if (run.service === 'glycol' && fluidC > GLYCOL_NOTICE_C) {
-    notices.push({ code: 'GLYCOL_ABOVE_60C', path: at('fluidTemperatureC'), message: `Run "${run.label}" carries glycol at ${formatNumber(Math.round(fluidC))} °C; glycol loops in food plants run cold, rarely above ${GLYCOL_NOTICE_C} °C — check the service or the temperature.`, params: { quantity: 'temperature', limit: 'max', limitSI: GLYCOL_NOTICE_C, givenSI: fluidC } });
-  }
-  if (steamGauge !== undefined && steamGauge < 0) {
-    notices.push({ code: 'STEAM_BELOW_ATMOSPHERIC', path: at('steamGaugePressureKPa'), message: `Run "${run.label}" gives steam below atmospheric pressure (${formatNumber(steamGauge)} kPa gauge); process steam in a food plant is above it — check the sign and the unit.`, params: { quantity: 'pressure', limit: 'min', limitSI: 0, givenSI: steamGauge } });
-  }
+  plausibilityNotices(run, plant.runs, service, lengthM, fluidC, steamGauge, ctx.atmosphereKPa, notices);
 
-  // Sampling terms.
-  const speedDelta = 0.5;
-  const emittanceDelta = 0.1;
   // Bare pipe's sensitivities matter only where bare pipe or bare fittings remain, today or after the choice.
   const bareMatters = currentHasBare || chosen.pipeBareFraction > 0 || chosen.fitBareW > 0;
-  const bareAtSpeed = bareMatters ? lean({ ...base, windSpeedMPerS: avg.speedMPerS + speedDelta }, bareAvg.surfaceC).wPerM : bareAvg.wPerM;
-  const bareAtEmittance = bareMatters ? lean({ ...base, surfaceEmittance: Math.min(1, bareEmittance + emittanceDelta) }, bareAvg.surfaceC).wPerM : bareAvg.wPerM;
-  const rel = (x: number) => (Math.abs(bareAvg.wPerM) > 1e-9 ? (x - bareAvg.wPerM) / bareAvg.wPerM : 0);
-  const tDiff = fluidC - avg.temperatureC;
-  const confidence = cond.confidence;
-  const speedSpread = Math.max(CONFIDENCE_SPREADS[confidence] * avg.speedMPerS, confidence === 'measured' ? 0.05 : confidence === 'estimated' ? 0.2 : 0.5);
-  const terms: SampleTerms = {
-    lengthM,
-    lengthSpread: CONFIDENCE_SPREADS[lengthConfidence],
-    hours,
-    cold,
-    costPerJHeat: rates.costPerJHeat,
-    co2PerJHeat: rates.co2PerJHeat,
-    currentBareWPerM: billed(bareAvg.wPerM),
-    currentInsulatedWPerM: billed(insW),
+  const terms = samplingTerms({
+    basis,
+    run,
+    cond,
+    base,
+    bareAvg,
+    bareEmittance,
+    bareMatters,
+    lengthConfidence,
+    chosen,
+    hasLagging: existing !== null,
+    conditionMeasured: reading?.conditionFactor !== null && reading?.conditionFactor !== undefined,
+    illustrativePrices: ctx.table.illustrative,
     bareFraction,
-    bareFractionSpread: run.current.state === 'damaged' ? CONFIDENCE_SPREADS[run.current.bareFractionConfidence] : 0,
-    currentFittingsBareW: fitBareEqL * billed(bareAvg.wPerM),
-    currentFittingsInsulatedW: fitCoveredEqL * billed(fittingsCoveredToday),
-    proposedBareWPerM: billed(bareAvg.wPerM),
-    proposedInsulatedWPerM: billed(chosen.pipeWPerM),
-    proposedBareFraction: chosen.pipeBareFraction,
-    proposedFittingsBareW: chosen.fitBareW,
-    proposedFittingsInsulatedW: chosen.fitInsulatedW,
-    bareSensitivityPerK: Math.abs(tDiff) > 1e-9 ? -1.25 / tDiff : 0,
-    bareSensitivityPerMPerS: rel(bareAtSpeed) / speedDelta,
-    bareSensitivityPerEmittance: rel(bareAtEmittance) / emittanceDelta,
-    insulatedSensitivityPerK: Math.abs(tDiff) > 1e-9 ? -1 / tDiff : 0,
-    airSpreadK: AIR_SPREAD_K[confidence],
-    speedSpreadMPerS: speedSpread,
-    emittanceSpread: run.finish !== undefined ? EMITTANCE_SPREAD.given : EMITTANCE_SPREAD.assumed,
-    conditionSpread: existing ? (reading?.conditionFactor !== null && reading?.conditionFactor !== undefined ? CONFIDENCE_SPREADS.measured : CONFIDENCE_SPREADS.guessed) : 0,
-    installedPerMetre: chosen.lengthInsulatedM > 0 ? (chosen.installedCost - chosen.fixedPrice * (typed?.lumpSum !== undefined ? 0 : 1)) / lengthM : 0,
-    installedFixed: typed?.lumpSum !== undefined ? 0 : chosen.kind === 'leave' ? 0 : chosen.fixedPrice,
-    priceSpread: typed ? CONFIDENCE_SPREADS.measured : ctx.table.illustrative ? CONFIDENCE_SPREADS.guessed : CONFIDENCE_SPREADS.estimated,
-  };
+    insW,
+    fittingsCoveredToday,
+    fitCoveredEqL: fittings.coveredEqL,
+  });
 
-  const publicOptions: RunOption[] = options.map((o) =>
-    ctx.detail === 'full'
-      ? {
-          kind: o.kind,
-          thicknessM: o.thicknessM,
-          installedCost: o.installedCost,
-          annualCost: o.annualCost,
-          simplePaybackYears: o.simplePaybackYears,
-          lifeCycleCost: o.lifeCycleCost,
-          meetsTouchLimit: o.meetsTouchLimit,
-          meetsDewPoint: o.meetsDewPoint,
-          material: o.material,
-          jacket: o.jacket,
-          lengthInsulatedM: o.lengthInsulatedM,
-          fittingCovers: o.fittingCovers,
-          annualHeatGJ: o.annualHeatGJ,
-          annualCo2Kg: o.annualCo2Kg,
-          annualCostSaving: o.annualCostSaving,
-          designSurfaceTemperatureC: o.designSurfaceTemperatureC,
-        }
-      : {
-          kind: o.kind,
-          thicknessM: o.thicknessM,
-          installedCost: o.installedCost,
-          annualCost: o.annualCost,
-          simplePaybackYears: o.simplePaybackYears,
-          lifeCycleCost: o.lifeCycleCost,
-          meetsTouchLimit: o.meetsTouchLimit,
-          meetsDewPoint: o.meetsDewPoint,
-        },
-  );
   const estimate: RunEstimate = {
     id: run.id,
     label: run.label,
@@ -766,7 +448,7 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
     simplePaybackYears: chosen.kind === 'leave' ? null : simplePaybackYears(chosen.installedCost, savings.annualCost),
     lifeCycle: { currentCost: currentLifeCycle, proposedCost: proposedLifeCycle, netSaving: currentLifeCycle - proposedLifeCycle },
     choice: reason,
-    options: publicOptions,
+    options: options.map(ctx.detail === 'full' ? fullOption : summaryOption),
     economicThickness: economic ? { thicknessM: economic.thicknessM, lifeCycleCost: economic.lifeCycleCost } : null,
     ...(ctx.detail === 'full' ? { thicknessSeries: seriesOut } : {}),
     personnelProtection: { applies: burnNeed, touchLimitC, designAirTemperatureC: cond.designHot.temperatureC, leastThicknessM: burnNeed ? (leastMeeting?.t ?? null) : null },
@@ -776,6 +458,233 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
     notices,
   };
   return { estimate, terms, noStock };
+}
+
+/** The bare run's input to the solver: the pipe, what it carries, and the year's average air. */
+function bareRunInput(run: ParsedPlantRun, ctx: PlantContext, service: ServiceDefaults, cond: RunConditions, lengthM: number, steamGauge: number | undefined): ParsedRunInput {
+  const avg = cond.average;
+  return {
+    pipe: run.pipe,
+    ...(steamGauge !== undefined
+      ? { steam: { gaugePressureKPa: steamGauge, atmosphericPressureKPa: ctx.atmosphereKPa } }
+      : { fluidTemperatureC: run.fluidTemperatureC ?? service.typicalTemperatureC }),
+    ...(service.liquid ? { fluid: { kind: service.liquid, velocityMPerS: run.velocityMPerS ?? service.typicalVelocityMPerS } } : {}),
+    ambientTemperatureC: avg.temperatureC,
+    windSpeedMPerS: avg.speedMPerS,
+    orientation: run.orientation,
+    runHeightM: run.runHeightM ?? 3,
+    runLengthM: lengthM,
+    relativeHumidityPercent: avg.relativeHumidityPercent,
+    ...(run.finish !== undefined ? { surface: run.finish } : {}),
+    insulation: [],
+    touchLimitC: ctx.plant.economics.touchLimitC,
+  };
+}
+
+/** The lagging on a run today, as the options see it. */
+interface ExistingLagging {
+  readonly material: InsulationMaterial;
+  readonly thicknessM: number;
+  readonly jacket: string;
+  readonly emittance: number;
+  readonly layers: ResolvedLayer[];
+}
+
+/** A run's fittings as equivalent lengths of bare pipe at its size: all, those bare today, and how many are bare. */
+interface FittingsTally {
+  readonly eqL: number;
+  readonly bareEqL: number;
+  readonly coveredEqL: number;
+  readonly uncoveredCount: number;
+}
+
+function fittingsOf(run: ParsedPlantRun, pipeOuterDiameterM: number): FittingsTally {
+  const coveredToday = run.current.state !== 'bare';
+  let bareEqL = 0;
+  let coveredEqL = 0;
+  let uncoveredCount = 0;
+  const add = (type: FittingTypeId, count: number, covered: boolean) => {
+    const eq = count * fittingEquivalentLengthM(type, pipeOuterDiameterM);
+    if (covered) coveredEqL += eq;
+    else {
+      bareEqL += eq;
+      uncoveredCount += count;
+    }
+  };
+  if (run.valves > 0) add('valve-flanged', run.valves, run.fittingsInsulated && coveredToday);
+  if (run.flangePairs > 0) add('flange-pair', run.flangePairs, run.fittingsInsulated && coveredToday);
+  for (const f of run.fittings) add(f.type, f.count, f.covered && coveredToday);
+  return { eqL: bareEqL + coveredEqL, bareEqL, coveredEqL, uncoveredCount };
+}
+
+/** How one series is walked: the run at average and design air, re-layered per thickness (no run is allocated per solve). */
+interface SeriesWalkBasis {
+  readonly basis: OptionBasis;
+  readonly material: InsulationMaterial;
+  readonly thicknesses: readonly number[];
+  readonly avgRun: MutableRun;
+  readonly designRun: MutableRun | null;
+  /** The thickness a stock (nominal) thickness has on bare pipe. */
+  readonly actual: (thicknessM: number) => number;
+  /** Stop past the least life-cycle cost (a summary answer shows no series). */
+  readonly costed: boolean;
+}
+
+/**
+ * The proposed material's stock series on the bare pipe (no layers `under`), or added over the
+ * lagging in place, with each loss scaled by `factor` (the condition of what is there).
+ */
+function walkSeries(w: SeriesWalkBasis, under: readonly ResolvedLayer[], extraPerMetre: number, factor: number): SeriesEntry[] {
+  const { basis, avgRun, designRun } = w;
+  const layer: MutableLayer = { thicknessM: 0, curve: w.material.conductivity };
+  const layers: ResolvedLayer[] = [...under, layer];
+  const over = under.length > 0;
+  const fitCovers = basis.coverFittings ? basis.uncoveredCount : 0;
+  return walkStockSeries({
+    thicknessesM: w.thicknesses,
+    runAt: (t) => {
+      layer.thicknessM = over ? t : w.actual(t);
+      avgRun.layers = layers;
+      return avgRun;
+    },
+    designRunAt: designRun
+      ? (t) => {
+          layer.thicknessM = over ? t : w.actual(t);
+          designRun.layers = layers;
+          return designRun;
+        }
+      : null,
+    meets: (surfaceC) => meetsNeed(basis, surfaceC),
+    ...(w.costed
+      ? {
+          lifeCycleCost: (t: number, wPerM: number) =>
+            (pricePerMetre(basis, w.material, t) + extraPerMetre) * basis.lengthM +
+            fitCovers * basis.coverEach +
+            basis.presentWorthFactor * annualCostOfBilled(basis, (basis.lengthM + basis.fitEqL) * billedW(basis, wPerM * factor)),
+        }
+      : {}),
+  }).map(toSeriesEntry(factor));
+}
+
+/** The proposed material's series as the full answer shows it: each stock thickness with its cost over the horizon. */
+function thicknessSeriesOut(basis: OptionBasis, series: readonly SeriesEntry[], material: InsulationMaterial, fitCovers: number, actual: (thicknessM: number) => number): ThicknessOption[] {
+  return series.map((e) => {
+    const installed = pricePerMetre(basis, material, e.t) * basis.lengthM + fitCovers * basis.coverEach;
+    const fitW = basis.fitEqL * billedW(basis, e.avg.wPerM);
+    return {
+      thicknessM: e.t,
+      actualThicknessM: actual(e.t),
+      heatLossWPerM: e.avg.wPerM,
+      surfaceTemperatureC: e.avg.surfaceC,
+      installedCost: installed,
+      lifeCycleCost: installed + basis.presentWorthFactor * annualCostOfBilled(basis, basis.lengthM * billedW(basis, e.avg.wPerM) + fitW),
+    };
+  });
+}
+
+/** What the range needs of a run, beyond its figures. */
+interface TermsFacts {
+  readonly basis: OptionBasis;
+  readonly run: ParsedPlantRun;
+  readonly cond: RunConditions;
+  readonly base: ResolvedRun;
+  readonly bareAvg: SolvedState;
+  readonly bareEmittance: number;
+  /** Bare pipe or bare fittings remain, today or after the choice. */
+  readonly bareMatters: boolean;
+  readonly lengthConfidence: Confidence;
+  readonly chosen: WeighedOption;
+  readonly hasLagging: boolean;
+  readonly conditionMeasured: boolean;
+  readonly illustrativePrices: boolean;
+  readonly bareFraction: number;
+  readonly insW: number;
+  readonly fittingsCoveredToday: number;
+  readonly fitCoveredEqL: number;
+}
+
+/** Air speed and emittance steps of the bare pipe's sensitivities (finite differences). */
+const SPEED_STEP_M_PER_S = 0.5;
+const EMITTANCE_STEP = 0.1;
+/** Least air-speed spread of the range by confidence, m/s — common practice (our choice). */
+const LEAST_SPEED_SPREAD_M_PER_S: Readonly<Record<Confidence, number>> = { measured: 0.05, estimated: 0.2, guessed: 0.5 };
+
+/** A run's sampling terms: its figures split linear in the sampled factors, and its sensitivities. */
+function samplingTerms(f: TermsFacts): SampleTerms {
+  const { basis, run, cond, base, bareAvg, chosen } = f;
+  const avg = cond.average;
+  const typed = run.proposed.price;
+  const bareAtSpeed = f.bareMatters ? lean({ ...base, windSpeedMPerS: avg.speedMPerS + SPEED_STEP_M_PER_S }, bareAvg.surfaceC).wPerM : bareAvg.wPerM;
+  const bareAtEmittance = f.bareMatters ? lean({ ...base, surfaceEmittance: Math.min(1, f.bareEmittance + EMITTANCE_STEP) }, bareAvg.surfaceC).wPerM : bareAvg.wPerM;
+  const rel = (x: number) => (Math.abs(bareAvg.wPerM) > 1e-9 ? (x - bareAvg.wPerM) / bareAvg.wPerM : 0);
+  const tDiff = base.fluidTemperatureC - avg.temperatureC;
+  const confidence = cond.confidence;
+  return {
+    lengthM: basis.lengthM,
+    lengthSpread: CONFIDENCE_SPREADS[f.lengthConfidence],
+    hours: basis.hours,
+    cold: basis.cold,
+    costPerJHeat: basis.rates.costPerJHeat,
+    co2PerJHeat: basis.rates.co2PerJHeat,
+    currentBareWPerM: billedW(basis, bareAvg.wPerM),
+    currentInsulatedWPerM: billedW(basis, f.insW),
+    bareFraction: f.bareFraction,
+    bareFractionSpread: run.current.state === 'damaged' ? CONFIDENCE_SPREADS[run.current.bareFractionConfidence] : 0,
+    currentFittingsBareW: basis.fitBareEqL * billedW(basis, bareAvg.wPerM),
+    currentFittingsInsulatedW: f.fitCoveredEqL * billedW(basis, f.fittingsCoveredToday),
+    proposedBareWPerM: billedW(basis, bareAvg.wPerM),
+    proposedInsulatedWPerM: billedW(basis, chosen.pipeWPerM),
+    proposedBareFraction: chosen.pipeBareFraction,
+    proposedFittingsBareW: chosen.fitBareW,
+    proposedFittingsInsulatedW: chosen.fitInsulatedW,
+    bareSensitivityPerK: Math.abs(tDiff) > 1e-9 ? -1.25 / tDiff : 0,
+    bareSensitivityPerMPerS: rel(bareAtSpeed) / SPEED_STEP_M_PER_S,
+    bareSensitivityPerEmittance: rel(bareAtEmittance) / EMITTANCE_STEP,
+    insulatedSensitivityPerK: Math.abs(tDiff) > 1e-9 ? -1 / tDiff : 0,
+    airSpreadK: AIR_SPREAD_K[confidence],
+    speedSpreadMPerS: Math.max(CONFIDENCE_SPREADS[confidence] * avg.speedMPerS, LEAST_SPEED_SPREAD_M_PER_S[confidence]),
+    emittanceSpread: run.finish !== undefined ? EMITTANCE_SPREAD.given : EMITTANCE_SPREAD.assumed,
+    conditionSpread: f.hasLagging ? (f.conditionMeasured ? CONFIDENCE_SPREADS.measured : CONFIDENCE_SPREADS.guessed) : 0,
+    installedPerMetre: chosen.lengthInsulatedM > 0 ? (chosen.installedCost - chosen.fixedPrice * (typed?.lumpSum !== undefined ? 0 : 1)) / basis.lengthM : 0,
+    installedFixed: typed?.lumpSum !== undefined ? 0 : chosen.kind === 'leave' ? 0 : chosen.fixedPrice,
+    priceSpread: typed ? CONFIDENCE_SPREADS.measured : f.illustrativePrices ? CONFIDENCE_SPREADS.guessed : CONFIDENCE_SPREADS.estimated,
+  };
+}
+
+/** An option as the full answer gives it. */
+function fullOption(o: WeighedOption): RunOption {
+  return {
+    kind: o.kind,
+    thicknessM: o.thicknessM,
+    installedCost: o.installedCost,
+    annualCost: o.annualCost,
+    simplePaybackYears: o.simplePaybackYears,
+    lifeCycleCost: o.lifeCycleCost,
+    meetsTouchLimit: o.meetsTouchLimit,
+    meetsDewPoint: o.meetsDewPoint,
+    material: o.material,
+    jacket: o.jacket,
+    lengthInsulatedM: o.lengthInsulatedM,
+    fittingCovers: o.fittingCovers,
+    annualHeatGJ: o.annualHeatGJ,
+    annualCo2Kg: o.annualCo2Kg,
+    annualCostSaving: o.annualCostSaving,
+    designSurfaceTemperatureC: o.designSurfaceTemperatureC,
+  };
+}
+
+/** An option as a summary answer gives it: the figures the screens show. */
+function summaryOption(o: WeighedOption): RunOption {
+  return {
+    kind: o.kind,
+    thicknessM: o.thicknessM,
+    installedCost: o.installedCost,
+    annualCost: o.annualCost,
+    simplePaybackYears: o.simplePaybackYears,
+    lifeCycleCost: o.lifeCycleCost,
+    meetsTouchLimit: o.meetsTouchLimit,
+    meetsDewPoint: o.meetsDewPoint,
+  };
 }
 
 function currentLayers(run: ParsedPlantRun): ResolvedLayer[] | null {
@@ -790,22 +699,6 @@ function laggingInPlace(material: InsulationMaterial, thicknessM: number, condit
   const { a, b, c } = material.conductivity;
   const k = found.conductivityFactor;
   return { thicknessM: thicknessM * found.thicknessFactor, curve: k === 1 ? material.conductivity : { a: a * k, b: b * k, c: c * k } };
-}
-
-/** The name of an option in our words. */
-export function optionName(kind: OptionKind): string {
-  switch (kind) {
-    case 'leave':
-      return 'Leaving it as it is';
-    case 'repair':
-      return 'Repairing only the bare parts';
-    case 'insulate':
-      return 'Insulating it';
-    case 'add-layer':
-      return 'Adding a layer over the old insulation';
-    case 'replace':
-      return 'Replacing the insulation';
-  }
 }
 
 export { ZERO_FIGURES };
