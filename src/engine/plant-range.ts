@@ -73,6 +73,37 @@ export function sampleRanges(
   };
 }
 
+// Offsets of a run's terms in its record of the sampling loop's one typed array.
+const LENGTH_M = 0;
+const LENGTH_SPREAD = 1;
+const HOURS = 2;
+const COST_PER_J = 3;
+const CO2_PER_J = 4;
+const CURRENT_BARE_W_PER_M = 5;
+const CURRENT_INSULATED_W_PER_M = 6;
+const BARE_FRACTION = 7;
+const BARE_FRACTION_SPREAD = 8;
+const CURRENT_FITTINGS_BARE_W = 9;
+const CURRENT_FITTINGS_INSULATED_W = 10;
+const PROPOSED_BARE_W_PER_M = 11;
+const PROPOSED_INSULATED_W_PER_M = 12;
+const PROPOSED_BARE_FRACTION = 13;
+const PROPOSED_FITTINGS_BARE_W = 14;
+const PROPOSED_FITTINGS_INSULATED_W = 15;
+const BARE_PER_K = 16;
+const AIR_SPREAD_K = 17;
+const BARE_PER_M_PER_S = 18;
+const SPEED_SPREAD = 19;
+const BARE_PER_EMITTANCE = 20;
+const EMITTANCE_SPREAD = 21;
+const INSULATED_PER_K = 22;
+const CONDITION_SPREAD = 23;
+const INSTALLED_PER_M = 24;
+const INSTALLED_FIXED = 25;
+const PRICE_SPREAD = 26;
+const COLD = 27;
+const RUN_RECORD = 28;
+
 /** One figure per sample, filled by {@link drawSamples}. */
 interface SampleColumns {
   readonly currentCost: Float64Array;
@@ -110,68 +141,43 @@ function drawSamples(
   const co2SavingS = out.co2Saving;
   const installedS = out.installed;
   const paybackS = out.payback;
-  // Column by column in typed arrays held in locals: the inner loop runs samples × runs times.
+  // One record of numbers per run in a single typed array: the inner loop runs samples × runs
+  // times, and one array (one bounds check, one base pointer) serves all of a run's terms.
   const runCount = terms.length;
   // Plain loops, no per-call closures: optimised code that held a closure made here would be
   // thrown away by the next full collection, and the loop below run unoptimised again.
-  const lengthMCol = new Float64Array(runCount);
-  const lengthSpreadCol = new Float64Array(runCount);
-  const hoursCol = new Float64Array(runCount);
-  const costPerJHeatCol = new Float64Array(runCount);
-  const co2PerJHeatCol = new Float64Array(runCount);
-  const currentBareWPerMCol = new Float64Array(runCount);
-  const currentInsulatedWPerMCol = new Float64Array(runCount);
-  const bareFractionCol = new Float64Array(runCount);
-  const bareFractionSpreadCol = new Float64Array(runCount);
-  const currentFittingsBareWCol = new Float64Array(runCount);
-  const currentFittingsInsulatedWCol = new Float64Array(runCount);
-  const proposedBareWPerMCol = new Float64Array(runCount);
-  const proposedInsulatedWPerMCol = new Float64Array(runCount);
-  const proposedBareFractionCol = new Float64Array(runCount);
-  const proposedFittingsBareWCol = new Float64Array(runCount);
-  const proposedFittingsInsulatedWCol = new Float64Array(runCount);
-  const bareAirCol = new Float64Array(runCount);
-  const airSpreadCol = new Float64Array(runCount);
-  const bareSpeedCol = new Float64Array(runCount);
-  const speedSpreadCol = new Float64Array(runCount);
-  const bareEmittanceCol = new Float64Array(runCount);
-  const emittanceSpreadCol = new Float64Array(runCount);
-  const insulatedAirCol = new Float64Array(runCount);
-  const conditionSpreadCol = new Float64Array(runCount);
-  const installedPerMetreCol = new Float64Array(runCount);
-  const installedFixedCol = new Float64Array(runCount);
-  const priceSpreadCol = new Float64Array(runCount);
-  const coldCol = new Uint8Array(runCount);
+  const runs = new Float64Array(runCount * RUN_RECORD);
   for (let r = 0; r < runCount; r++) {
     const t = terms[r] as SampleTerms;
-    lengthMCol[r] = t.lengthM;
-    lengthSpreadCol[r] = t.lengthSpread;
-    hoursCol[r] = t.hours;
-    costPerJHeatCol[r] = t.costPerJHeat;
-    co2PerJHeatCol[r] = t.co2PerJHeat;
-    currentBareWPerMCol[r] = t.currentBareWPerM;
-    currentInsulatedWPerMCol[r] = t.currentInsulatedWPerM;
-    bareFractionCol[r] = t.bareFraction;
-    bareFractionSpreadCol[r] = t.bareFractionSpread;
-    currentFittingsBareWCol[r] = t.currentFittingsBareW;
-    currentFittingsInsulatedWCol[r] = t.currentFittingsInsulatedW;
-    proposedBareWPerMCol[r] = t.proposedBareWPerM;
-    proposedInsulatedWPerMCol[r] = t.proposedInsulatedWPerM;
-    proposedBareFractionCol[r] = t.proposedBareFraction;
-    proposedFittingsBareWCol[r] = t.proposedFittingsBareW;
-    proposedFittingsInsulatedWCol[r] = t.proposedFittingsInsulatedW;
-    bareAirCol[r] = t.bareSensitivityPerK;
-    airSpreadCol[r] = t.airSpreadK;
-    bareSpeedCol[r] = t.bareSensitivityPerMPerS;
-    speedSpreadCol[r] = t.speedSpreadMPerS;
-    bareEmittanceCol[r] = t.bareSensitivityPerEmittance;
-    emittanceSpreadCol[r] = t.emittanceSpread;
-    insulatedAirCol[r] = t.insulatedSensitivityPerK;
-    conditionSpreadCol[r] = t.conditionSpread;
-    installedPerMetreCol[r] = t.installedPerMetre;
-    installedFixedCol[r] = t.installedFixed;
-    priceSpreadCol[r] = t.priceSpread;
-    coldCol[r] = t.cold ? 1 : 0;
+    const o = r * RUN_RECORD;
+    runs[o + LENGTH_M] = t.lengthM;
+    runs[o + LENGTH_SPREAD] = t.lengthSpread;
+    runs[o + HOURS] = t.hours;
+    runs[o + COST_PER_J] = t.costPerJHeat;
+    runs[o + CO2_PER_J] = t.co2PerJHeat;
+    runs[o + CURRENT_BARE_W_PER_M] = t.currentBareWPerM;
+    runs[o + CURRENT_INSULATED_W_PER_M] = t.currentInsulatedWPerM;
+    runs[o + BARE_FRACTION] = t.bareFraction;
+    runs[o + BARE_FRACTION_SPREAD] = t.bareFractionSpread;
+    runs[o + CURRENT_FITTINGS_BARE_W] = t.currentFittingsBareW;
+    runs[o + CURRENT_FITTINGS_INSULATED_W] = t.currentFittingsInsulatedW;
+    runs[o + PROPOSED_BARE_W_PER_M] = t.proposedBareWPerM;
+    runs[o + PROPOSED_INSULATED_W_PER_M] = t.proposedInsulatedWPerM;
+    runs[o + PROPOSED_BARE_FRACTION] = t.proposedBareFraction;
+    runs[o + PROPOSED_FITTINGS_BARE_W] = t.proposedFittingsBareW;
+    runs[o + PROPOSED_FITTINGS_INSULATED_W] = t.proposedFittingsInsulatedW;
+    runs[o + BARE_PER_K] = t.bareSensitivityPerK;
+    runs[o + AIR_SPREAD_K] = t.airSpreadK;
+    runs[o + BARE_PER_M_PER_S] = t.bareSensitivityPerMPerS;
+    runs[o + SPEED_SPREAD] = t.speedSpreadMPerS;
+    runs[o + BARE_PER_EMITTANCE] = t.bareSensitivityPerEmittance;
+    runs[o + EMITTANCE_SPREAD] = t.emittanceSpread;
+    runs[o + INSULATED_PER_K] = t.insulatedSensitivityPerK;
+    runs[o + CONDITION_SPREAD] = t.conditionSpread;
+    runs[o + INSTALLED_PER_M] = t.installedPerMetre;
+    runs[o + INSTALLED_FIXED] = t.installedFixed;
+    runs[o + PRICE_SPREAD] = t.priceSpread;
+    runs[o + COLD] = t.cold ? 1 : 0;
   }
   for (let s = 0; s < n; s++) {
     const hoursFactor = triangularFactor(hoursSpread, nextDraw());
@@ -191,40 +197,40 @@ function drawSamples(
     let proposedHeat = 0;
     let proposedCo2 = 0;
     let installed = 0;
-    for (let r = 0; r < runCount; r++) {
-      const length = lengthMCol[r]! * triangularFactor(lengthSpreadCol[r]!, nextDraw());
-      const bareFractionSpread = bareFractionSpreadCol[r]!;
+    for (let o = 0; o < runs.length; o += RUN_RECORD) {
+      const length = runs[o + LENGTH_M]! * triangularFactor(runs[o + LENGTH_SPREAD]!, nextDraw());
+      const bareFractionSpread = runs[o + BARE_FRACTION_SPREAD]!;
       const fraction =
-        bareFractionSpread > 0 ? Math.min(1, Math.max(0, bareFractionCol[r]! * triangularFactor(bareFractionSpread, nextDraw()))) : bareFractionCol[r]!;
-      const airSpread = airSpreadCol[r]!;
+        bareFractionSpread > 0 ? Math.min(1, Math.max(0, runs[o + BARE_FRACTION]! * triangularFactor(bareFractionSpread, nextDraw()))) : runs[o + BARE_FRACTION]!;
+      const airSpread = runs[o + AIR_SPREAD_K]!;
       const bareFactor = Math.max(
         0,
-        1 + bareAirCol[r]! * airOffset * airSpread + bareSpeedCol[r]! * speedOffset * speedSpreadCol[r]! + bareEmittanceCol[r]! * emittanceOffset * emittanceSpreadCol[r]!,
+        1 + runs[o + BARE_PER_K]! * airOffset * airSpread + runs[o + BARE_PER_M_PER_S]! * speedOffset * runs[o + SPEED_SPREAD]! + runs[o + BARE_PER_EMITTANCE]! * emittanceOffset * runs[o + EMITTANCE_SPREAD]!,
       );
-      const insulatedFactor = Math.max(0, 1 + insulatedAirCol[r]! * airOffset * airSpread);
-      const conditionFactor = 1 + conditionOffset * conditionSpreadCol[r]!;
-      const seconds = Math.min(HOURS_PER_YEAR, hoursCol[r]! * hoursFactor) * SECONDS_PER_HOUR;
+      const insulatedFactor = Math.max(0, 1 + runs[o + INSULATED_PER_K]! * airOffset * airSpread);
+      const conditionFactor = 1 + conditionOffset * runs[o + CONDITION_SPREAD]!;
+      const seconds = Math.min(HOURS_PER_YEAR, runs[o + HOURS]! * hoursFactor) * SECONDS_PER_HOUR;
       const currentW =
-        length * (fraction * currentBareWPerMCol[r]! * bareFactor + (1 - fraction) * currentInsulatedWPerMCol[r]! * insulatedFactor * conditionFactor) +
-        currentFittingsBareWCol[r]! * bareFactor +
-        currentFittingsInsulatedWCol[r]! * insulatedFactor;
-      const proposedBareFraction = proposedBareFractionCol[r]!;
+        length * (fraction * runs[o + CURRENT_BARE_W_PER_M]! * bareFactor + (1 - fraction) * runs[o + CURRENT_INSULATED_W_PER_M]! * insulatedFactor * conditionFactor) +
+        runs[o + CURRENT_FITTINGS_BARE_W]! * bareFactor +
+        runs[o + CURRENT_FITTINGS_INSULATED_W]! * insulatedFactor;
+      const proposedBareFraction = runs[o + PROPOSED_BARE_FRACTION]!;
       const proposedW =
-        length * (proposedBareFraction * proposedBareWPerMCol[r]! * bareFactor + (1 - proposedBareFraction) * proposedInsulatedWPerMCol[r]! * insulatedFactor) +
-        proposedFittingsBareWCol[r]! * bareFactor +
-        proposedFittingsInsulatedWCol[r]! * insulatedFactor;
+        length * (proposedBareFraction * runs[o + PROPOSED_BARE_W_PER_M]! * bareFactor + (1 - proposedBareFraction) * runs[o + PROPOSED_INSULATED_W_PER_M]! * insulatedFactor) +
+        runs[o + PROPOSED_FITTINGS_BARE_W]! * bareFactor +
+        runs[o + PROPOSED_FITTINGS_INSULATED_W]! * insulatedFactor;
       const currentJ = currentW * seconds;
       const proposedJ = proposedW * seconds;
-      const cold = coldCol[r] === 1;
-      const perJCost = cold ? costPerJHeatCol[r]! * fuelFactor : (costPerJHeatCol[r]! * fuelFactor) / efficiencyFactor;
-      const perJCo2 = cold ? co2PerJHeatCol[r]! : co2PerJHeatCol[r]! / efficiencyFactor;
+      const cold = runs[o + COLD] === 1;
+      const perJCost = cold ? runs[o + COST_PER_J]! * fuelFactor : (runs[o + COST_PER_J]! * fuelFactor) / efficiencyFactor;
+      const perJCo2 = cold ? runs[o + CO2_PER_J]! : runs[o + CO2_PER_J]! / efficiencyFactor;
       currentCost += currentJ * perJCost;
       currentHeat += currentJ;
       currentCo2 += currentJ * perJCo2;
       proposedCost += proposedJ * perJCost;
       proposedHeat += proposedJ;
       proposedCo2 += proposedJ * perJCo2;
-      installed += (installedPerMetreCol[r]! * length + installedFixedCol[r]!) * (1 + priceOffset * priceSpreadCol[r]!);
+      installed += (runs[o + INSTALLED_PER_M]! * length + runs[o + INSTALLED_FIXED]!) * (1 + priceOffset * runs[o + PRICE_SPREAD]!);
     }
     currentCostS[s] = currentCost;
     currentHeatS[s] = currentHeat / J_PER_GJ;
