@@ -54,8 +54,10 @@ export function temperatureAcrossLayer(
   if (curve.b === 0 && curve.c === 0) return fromC + deltaIntegral / curve.a;
   const start = conductivityIntegral(curve, fromC);
   const target = start + deltaIntegral;
-  let lo: number;
-  let hi: number;
+  // Numbers from the start: a variable that may also hold `undefined` is kept boxed, and each
+  // step of the loop below would allocate.
+  let lo = fromC;
+  let hi = fromC;
   if (deltaIntegral >= 0) {
     const top = conductivityIntegral(curve, highC);
     if (target >= top) return highC + (target - top) / conductivityAt(curve, highC);

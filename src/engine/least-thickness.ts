@@ -31,6 +31,20 @@ export interface SeriesWalk {
 }
 
 /**
+ * The warm start of a thickness: the surface carried on along the line through the last two
+ * thicknesses walked (a start only — the solve ends within its own tolerance wherever it begins).
+ */
+function onwardGuess(points: readonly SeriesPoint[], thicknessM: number, lastSurfaceC: number): number {
+  const n = points.length;
+  if (n < 2) return lastSurfaceC;
+  const last = points[n - 1] as SeriesPoint;
+  const before = points[n - 2] as SeriesPoint;
+  const span = last.thicknessM - before.thicknessM;
+  if (!(span > 0)) return lastSurfaceC;
+  return lastSurfaceC + ((lastSurfaceC - before.surfaceTemperatureC) * (thicknessM - last.thicknessM)) / span;
+}
+
+/**
  * The one least-thickness search of the engine, shared by the plant estimate and
  * thickness.ts: lean solves up a stock series, warm-started from the thickness before, with
  * the design solve only until the need is first met (the surface only gets safer with
@@ -44,7 +58,7 @@ export function walkStockSeries(walk: SeriesWalk): SeriesPoint[] {
   let best = Number.POSITIVE_INFINITY;
   let rises = 0;
   for (const t of walk.thicknessesM) {
-    const avg = solveLean(walk.runAt(t), guess);
+    const avg = solveLean(walk.runAt(t), guess === undefined ? undefined : onwardGuess(points, t, guess));
     const wPerM = avg.heatLossWPerM;
     const surfaceC = avg.surfaceTemperatureC;
     guess = surfaceC;

@@ -2,7 +2,7 @@ import { airPropertiesAt, type AirProperties } from './air-properties';
 import { conductivityAt, meanConductivity, temperatureAcrossLayer, type ConductivityCurve } from './conductivity';
 import { combineMixedConvection, rayleighNumber } from './convection';
 import { EngineError } from './errors';
-import { ZERO_CELSIUS_K } from './physical-constants';
+import { STEFAN_BOLTZMANN_W_PER_M2K4, ZERO_CELSIUS_K } from './physical-constants';
 import { radiationCoefficientWPerM2K } from './radiation';
 import { brentRoot } from './root-finding';
 import { condensationFluxKgPerM2S, latentHeatOfDepositionJPerKg } from './latent-gain';
@@ -71,7 +71,7 @@ const SURFACE_TOLERANCE_K = 1e-7;
  * difference.
  */
 const IMPLIED_FLUID_TOLERANCE_K = 1e-7;
-/** Bound on root-finder iterations; Brent needs about 4–10 here. */
+/** Bound on Brent's iterations where the secant search gives way; it needs about 4–10 here. */
 const MAX_ITERATIONS = 200;
 const MAX_LAYERS = 8;
 
@@ -97,8 +97,12 @@ interface SolverState {
   surfaceDiameterM: number;
   vertical: boolean;
   naturalLengthM: number;
-  fixedCombined: number | null;
-  fixedConvection: number | null;
+  /** The combined outer coefficient is fixed by the caller (no separate radiation): `fixedCombined`. */
+  hasFixedCombined: boolean;
+  fixedCombined: number;
+  /** The convection coefficient is fixed by the caller: `fixedConvection`. */
+  hasFixedConvection: boolean;
+  fixedConvection: number;
   vapourKPa: number;
   /** Dew point of the air, °C: no vapour condenses on a surface above it. */
   dewC: number;
@@ -111,55 +115,91 @@ interface SolverState {
   lastLatent: number;
   /** The surface temperature of the last trial, whose figures the `last…` fields hold. */
   lastSurfaceC: number;
+  /** Trials of the secant search so far. */
+  secantTrials: number;
+  /** The root of the last solve, °C, and the trials or iterations it took. */
+  rootC: number;
+  rootIterations: number;
+  /** Faces of the last trial's march: the inner face of each layer, then the surface. */
+  faceTemperatures: Float64Array;
+  /** Natural-convection part of the last trial's coefficient, W/(m²·K), and d ln h_N / d ln ΔT. */
+  lastNatural: number;
+  lastNaturalExponent: number;
 }
 
+// Every number starts as a non-integer double: a field first given a small integer and later a
+// fraction ends up holding either, and then each store of a fraction boxes it anew — thousands
+// of short-lived allocations per plant. A field that has only ever held doubles is written in place.
 const state: SolverState = {
   run: undefined as unknown as ResolvedRun,
   nLayers: 0,
   layerCoefficients: new Float64Array(MAX_LAYERS),
-  innerResistance: 0,
-  wallResistance: 0,
-  filmResistance: 0,
-  fluidC: 0,
-  ambientC: 0,
-  surroundingsC: 0,
-  surroundingsK: 0,
-  marchLowC: 0,
-  marchHighC: 0,
-  perimeter: 0,
-  surfaceDiameterM: 0,
+  innerResistance: Number.NaN,
+  wallResistance: Number.NaN,
+  filmResistance: Number.NaN,
+  fluidC: Number.NaN,
+  ambientC: Number.NaN,
+  surroundingsC: Number.NaN,
+  surroundingsK: Number.NaN,
+  marchLowC: Number.NaN,
+  marchHighC: Number.NaN,
+  perimeter: Number.NaN,
+  surfaceDiameterM: Number.NaN,
   vertical: false,
-  naturalLengthM: 0,
-  fixedCombined: null,
-  fixedConvection: null,
-  vapourKPa: -1,
-  dewC: -Infinity,
-  slenderFactor: 0,
-  air: { kinematicViscosityM2PerS: 0, conductivityWPerMK: 0, prandtl: 0, horizontalShape: 1, verticalShape: 1, crossFlowFactor: 1, slenderB: 0, slenderC: 1 },
-  lastConvection: 0,
-  lastRadiation: 0,
-  lastHeat: 0,
-  lastRayleigh: 0,
-  lastLatent: 0,
+  naturalLengthM: Number.NaN,
+  hasFixedCombined: false,
+  fixedCombined: Number.NaN,
+  hasFixedConvection: false,
+  fixedConvection: Number.NaN,
+  vapourKPa: Number.NaN,
+  dewC: Number.NEGATIVE_INFINITY,
+  slenderFactor: Number.NaN,
+  air: {
+    kinematicViscosityM2PerS: Number.NaN,
+    conductivityWPerMK: Number.NaN,
+    prandtl: Number.NaN,
+    horizontalShape: Number.NaN,
+    verticalShape: Number.NaN,
+    crossFlowFactor: Number.NaN,
+    slenderB: Number.NaN,
+    slenderC: Number.NaN,
+  },
+  lastConvection: Number.NaN,
+  lastRadiation: Number.NaN,
+  lastHeat: Number.NaN,
+  lastRayleigh: Number.NaN,
+  lastLatent: Number.NaN,
   lastSurfaceC: Number.NaN,
+  secantTrials: 0,
+  rootC: Number.NaN,
+  rootIterations: 0,
+  lastNatural: Number.NaN,
+  lastNaturalExponent: Number.NaN,
+  faceTemperatures: new Float64Array(MAX_LAYERS + 1),
 };
 
 function convectionAt(surfaceC: number): number {
   const st = state;
-  if (st.fixedConvection !== null) return st.fixedConvection;
+  if (st.hasFixedConvection) {
+    st.lastNatural = 0;
+    return st.fixedConvection;
+  }
   const filmK = 0.5 * (surfaceC + st.ambientC) + ZERO_CELSIUS_K;
   const air = airPropertiesAt(filmK, st.air);
   const nu = air.kinematicViscosityM2PerS;
   const ra = rayleighNumber(surfaceC - st.ambientC, st.naturalLengthM, filmK, nu, air.prandtl);
   st.lastRayleigh = ra;
   // Churchill & Chu (1975): horizontal cylinder on D, or vertical plate on the run height.
-  const root =
-    (st.vertical ? 0.825 : 0.6) + (0.387 * Math.sqrt(Math.cbrt(ra))) / (st.vertical ? air.verticalShape : air.horizontalShape);
+  const rising = (0.387 * Math.sqrt(Math.cbrt(ra))) / (st.vertical ? air.verticalShape : air.horizontalShape);
+  const root = (st.vertical ? 0.825 : 0.6) + rising;
   let naturalNusselt = root * root;
   // A thin vertical run sheds more than a flat plate of its height: Popiel's (2008) slender-
   // cylinder correction of the Churchill–Chu plate value on Gr_L = Ra_L / Pr (see convection.ts).
   if (st.vertical && ra > 0) naturalNusselt *= 1 + air.slenderB * Math.pow(st.slenderFactor / Math.sqrt(Math.sqrt(ra / air.prandtl)), air.slenderC);
   const natural = (naturalNusselt * air.conductivityWPerMK) / st.naturalLengthM;
+  // For the root finder's slope: d ln h_N / d ln ΔT of the Churchill–Chu form {c₀ + X}², X ∝ Ra^(1/6), is X / (3·(c₀ + X)).
+  st.lastNatural = natural;
+  st.lastNaturalExponent = rising / (3 * root);
   // Churchill & Bernstein (1977) in cross-flow; 0.3 alone in still air.
   const reynolds = (st.run.windSpeedMPerS * st.surfaceDiameterM) / nu;
   const forcedNusselt =
@@ -172,7 +212,7 @@ function convectionAt(surfaceC: number): number {
 
 function heatAt(surfaceC: number): number {
   const st = state;
-  if (st.fixedCombined !== null) {
+  if (st.hasFixedCombined) {
     st.lastConvection = st.fixedCombined;
     st.lastRadiation = 0;
     return st.fixedCombined * st.perimeter * (surfaceC - st.ambientC);
@@ -197,13 +237,17 @@ function impliedFluidMinusActual(surfaceC: number): number {
   st.lastSurfaceC = surfaceC;
   let t = surfaceC;
   const layers = st.run.layers;
+  const faces = st.faceTemperatures;
+  faces[st.nLayers] = t;
   for (let j = st.nLayers - 1; j >= 0; j--) {
     t = temperatureAcrossLayer((layers[j] as ResolvedLayer).curve, t, q * (st.layerCoefficients[j] as number), st.marchLowC, st.marchHighC);
+    faces[j] = t;
   }
   return t + q * st.innerResistance - st.fluidC;
 }
 
-function findSurface(run: ResolvedRun, guessSurfaceC: number | undefined): { surfaceC: number; iterations: number } {
+/** Solves the surface balance of a run; the root and its figures are left in the state. */
+function findSurface(run: ResolvedRun, guessSurfaceC: number | undefined): void {
   const st = state;
   const nLayers = run.layers.length;
   if (nLayers > MAX_LAYERS) {
@@ -240,8 +284,10 @@ function findSurface(run: ResolvedRun, guessSurfaceC: number | undefined): { sur
   st.perimeter = Math.PI * surfaceDiameterM;
   st.vertical = run.orientation === 'vertical';
   st.naturalLengthM = st.vertical ? run.runHeightM : surfaceDiameterM;
-  st.fixedCombined = run.fixedSurfaceCoefficientWPerM2K;
-  st.fixedConvection = run.fixedConvectionCoefficientWPerM2K;
+  st.hasFixedCombined = run.fixedSurfaceCoefficientWPerM2K !== null;
+  st.fixedCombined = run.fixedSurfaceCoefficientWPerM2K ?? Number.NaN;
+  st.hasFixedConvection = run.fixedConvectionCoefficientWPerM2K !== null;
+  st.fixedConvection = run.fixedConvectionCoefficientWPerM2K ?? Number.NaN;
   st.vapourKPa =
     run.fixedSurfaceCoefficientWPerM2K === null && run.fixedConvectionCoefficientWPerM2K === null ? (run.airVapourPressureKPa ?? -1) : -1;
   st.dewC = st.vapourKPa > 0 ? dewPointFromVapourKPa(st.vapourKPa) : Number.NEGATIVE_INFINITY;
@@ -250,99 +296,195 @@ function findSurface(run: ResolvedRun, guessSurfaceC: number | undefined): { sur
   st.lastRayleigh = 0;
   st.lastLatent = 0;
 
-  let surfaceC: number;
-  let iterations: number;
   if (highC - lowC < 1e-12) {
-    surfaceC = fluidC;
-    iterations = 0;
-    impliedFluidMinusActual(surfaceC);
-  } else {
-    let a = lowC;
-    let b = highC;
-    let fa: number | undefined;
-    let fb: number | undefined;
-    // Without a warm start, guess the surface from the resistances with k at the mean
-    // line/air temperature and a typical still-air coefficient of 10 W/(m²·K).
-    let guess = guessSurfaceC;
-    if (guess === undefined) {
-      const meanC = 0.5 * (fluidC + ambientC);
-      let layersR = 0;
-      for (let j = 0; j < nLayers; j++) {
-        layersR += (st.layerCoefficients[j] as number) / conductivityAt((run.layers[j] as ResolvedLayer).curve, meanC);
-      }
-      const surfaceR = 1 / ((st.fixedCombined ?? 10) * st.perimeter);
-      guess = ambientC + ((fluidC - ambientC) * surfaceR) / (st.innerResistance + layersR + surfaceR);
+    impliedFluidMinusActual(fluidC);
+    st.rootC = fluidC;
+    st.rootIterations = 0;
+    return;
+  }
+  // Without a warm start, guess the surface from the resistances with k at the mean
+  // line/air temperature and a typical still-air coefficient of 10 W/(m²·K).
+  let guess = Number.NaN;
+  if (guessSurfaceC !== undefined) guess = guessSurfaceC;
+  else {
+    const meanC = 0.5 * (fluidC + ambientC);
+    let layersR = 0;
+    for (let j = 0; j < nLayers; j++) {
+      layersR += (st.layerCoefficients[j] as number) / conductivityAt((run.layers[j] as ResolvedLayer).curve, meanC);
     }
-    if (guess > lowC && guess < highC) {
-      // Narrow the bracket around the guess: a few K usually holds the root.
-      const fg = impliedFluidMinusActual(guess);
-      let step = Math.max(0.25, 0.01 * (highC - lowC));
-      // A Newton estimate of the root from the surface's own coefficients: d(implied fluid)/dT_s
-      // ≈ 1 + π·D·(1.25·h_c + h_r)·R_inside (natural convection grows as ΔT^¼). The first
-      // trial lands just past it, so Brent starts on a bracket a few hundredths of a kelvin wide.
-      const q = st.lastHeat;
-      if (Math.abs(q) > 1e-9) {
-        const insideR = (fg + fluidC - guess) / q;
-        const hSlope = st.fixedCombined !== null ? st.fixedCombined : 1.25 * st.lastConvection + st.lastRadiation;
-        const slope = 1 + st.perimeter * hSlope * insideR;
-        if (slope > 0 && Number.isFinite(slope)) step = Math.max(Math.abs(fg / slope) * 1.02, 1e-6);
-      }
-      if (fg < 0) {
-        a = guess;
-        fa = fg;
-        for (;;) {
-          const trial = a + step;
-          if (trial >= highC) break;
-          const ft = impliedFluidMinusActual(trial);
-          if (ft >= 0) {
-            b = trial;
-            fb = ft;
-            break;
-          }
-          a = trial;
-          fa = ft;
-          step *= 4;
-        }
-      } else {
-        b = guess;
-        fb = fg;
-        for (;;) {
-          const trial = b - step;
-          if (trial <= lowC) break;
-          const ft = impliedFluidMinusActual(trial);
-          if (ft <= 0) {
-            a = trial;
-            fa = ft;
-            break;
-          }
+    const surfaceR = 1 / ((st.hasFixedCombined ? st.fixedCombined : 10) * st.perimeter);
+    guess = ambientC + ((fluidC - ambientC) * surfaceR) / (st.innerResistance + layersR + surfaceR);
+  }
+  const inside = guess > lowC && guess < highC;
+  const secant = inside ? secantRoot(guess, lowC, highC) : Number.NaN;
+  if (!Number.isNaN(secant)) {
+    // The state holds the last trial, which is the root.
+    st.rootC = secant;
+    st.rootIterations = st.secantTrials;
+    return;
+  }
+  bracketedRoot(inside ? guess : Number.NaN, lowC, highC);
+}
+
+/**
+ * The bracketed search, where the secant search cannot start or does not settle: the bracket
+ * narrowed around the guess (when there is one), then Brent's method; the root's figures
+ * left in the state.
+ */
+function bracketedRoot(guess: number, lowC: number, highC: number): void {
+  const st = state;
+  const fluidC = st.fluidC;
+  let a = lowC;
+  let b = highC;
+  let fa = Number.NaN;
+  let fb = Number.NaN;
+  if (!Number.isNaN(guess)) {
+    // Narrow the bracket around the guess: a few K usually holds the root.
+    const fg = impliedFluidMinusActual(guess);
+    let step = Math.max(0.25, 0.01 * (highC - lowC));
+    // A Newton estimate of the root from the surface's own coefficients: d(implied fluid)/dT_s
+    // ≈ 1 + π·D·(1.25·h_c + h_r)·R_inside (natural convection grows as ΔT^¼). The first
+    // trial lands just past it, so Brent starts on a bracket a few hundredths of a kelvin wide.
+    const q = st.lastHeat;
+    if (Math.abs(q) > 1e-9) {
+      const insideR = (fg + fluidC - guess) / q;
+      const hSlope = st.hasFixedCombined ? st.fixedCombined : 1.25 * st.lastConvection + st.lastRadiation;
+      const slope = 1 + st.perimeter * hSlope * insideR;
+      if (slope > 0 && Number.isFinite(slope)) step = Math.max(Math.abs(fg / slope) * 1.02, 1e-6);
+    }
+    if (fg < 0) {
+      a = guess;
+      fa = fg;
+      for (;;) {
+        const trial = a + step;
+        if (trial >= highC) break;
+        const ft = impliedFluidMinusActual(trial);
+        if (ft >= 0) {
           b = trial;
           fb = ft;
-          step *= 4;
+          break;
         }
+        a = trial;
+        fa = ft;
+        step *= 4;
+      }
+    } else {
+      b = guess;
+      fb = fg;
+      for (;;) {
+        const trial = b - step;
+        if (trial <= lowC) break;
+        const ft = impliedFluidMinusActual(trial);
+        if (ft <= 0) {
+          a = trial;
+          fa = ft;
+          break;
+        }
+        b = trial;
+        fb = ft;
+        step *= 4;
       }
     }
-    const result = brentRoot(
-      impliedFluidMinusActual,
-      a,
-      b,
-      SURFACE_TOLERANCE_K,
-      MAX_ITERATIONS,
-      fa ?? impliedFluidMinusActual(a),
-      fb ?? impliedFluidMinusActual(b),
-      IMPLIED_FLUID_TOLERANCE_K,
-    );
-    if (!result.converged || !Number.isFinite(result.root)) {
-      throw new EngineError(
-        'NO_CONVERGENCE',
-        'The surface heat balance did not converge for this run; check its temperatures and dimensions.',
-      );
-    }
-    surfaceC = result.root;
-    iterations = result.iterations;
-    // The state must hold the root's figures; most often the root was the last trial and already does.
-    if (st.lastSurfaceC !== surfaceC) impliedFluidMinusActual(surfaceC);
   }
-  return { surfaceC, iterations };
+  const result = brentRoot(
+    impliedFluidMinusActual,
+    a,
+    b,
+    SURFACE_TOLERANCE_K,
+    MAX_ITERATIONS,
+    Number.isNaN(fa) ? impliedFluidMinusActual(a) : fa,
+    Number.isNaN(fb) ? impliedFluidMinusActual(b) : fb,
+    IMPLIED_FLUID_TOLERANCE_K,
+  );
+  if (!result.converged || !Number.isFinite(result.root)) {
+    throw new EngineError(
+      'NO_CONVERGENCE',
+      'The surface heat balance did not converge for this run; check its temperatures and dimensions.',
+    );
+  }
+  // The state must hold the root's figures; most often the root was the last trial and already does.
+  if (st.lastSurfaceC !== result.root) impliedFluidMinusActual(result.root);
+  st.rootC = result.root;
+  st.rootIterations = result.iterations;
+}
+
+/** Most solves end within this many secant steps; beyond it the bracketed search takes over. */
+const MAX_SECANT_STEPS = 12;
+
+/**
+ * d(q′/πD)/dT_s at the last trial, W/(m²·K): convection h + n·h_N³/h² (mixed convection
+ * (h_F³ + h_N³)^⅓ with h_N ∝ ΔT^n, the film's properties held), radiation 4εσT_s³ exactly.
+ */
+function surfaceSlope(surfaceC: number): number {
+  const st = state;
+  if (st.hasFixedCombined) return st.fixedCombined;
+  const h = st.lastConvection;
+  const hN = st.lastNatural;
+  const convection = h > 0 ? h + (st.lastNaturalExponent * hN * hN * hN) / (h * h) : 0;
+  const surfaceK = surfaceC + ZERO_CELSIUS_K;
+  return convection + 4 * st.run.surfaceEmittance * STEFAN_BOLTZMANN_W_PER_M2K4 * surfaceK * surfaceK * surfaceK;
+}
+
+/**
+ * d(implied fluid temperature)/dT_s at the last trial. Across a layer K(T_in) − K(T_out) = q′·L,
+ * so ∂T_in/∂T_out = k(T_out)/k(T_in) and ∂T_in/∂q′ = L/k(T_in); chained inward through the
+ * layers and the inside resistance, with dq′/dT_s = π·D × {@link surfaceSlope}.
+ */
+function impliedFluidSlope(surfaceC: number): number {
+  const st = state;
+  const faces = st.faceTemperatures;
+  const layers = st.run.layers;
+  let bySurface = 1;
+  let byHeat = 0;
+  for (let j = st.nLayers - 1; j >= 0; j--) {
+    const curve = (layers[j] as ResolvedLayer).curve;
+    const kIn = conductivityAt(curve, faces[j] as number);
+    const ratio = conductivityAt(curve, faces[j + 1] as number) / kIn;
+    bySurface *= ratio;
+    byHeat = byHeat * ratio + (st.layerCoefficients[j] as number) / kIn;
+  }
+  return bySurface + (byHeat + st.innerResistance) * st.perimeter * surfaceSlope(surfaceC);
+}
+
+/**
+ * The usual way to the root: a Newton step from the guess on the slope of the implied fluid
+ * temperature ({@link impliedFluidSlope}, exact but for the film's properties and latent heat),
+ * then secant steps, each kept inside the bracket the trials so far have built (the
+ * implied fluid temperature rises strictly with the surface's, so every trial narrows it), with
+ * a bisection where a step would leave it. It ends on a trial within the tolerances, so the
+ * state holds the root's figures; NaN where it cannot start or does not settle, and the
+ * bracketed search (Brent) is used instead.
+ */
+function secantRoot(guess: number, lowC: number, highC: number): number {
+  const st = state;
+  let x0 = guess;
+  let f0 = impliedFluidMinusActual(x0);
+  st.secantTrials = 1;
+  if (Math.abs(f0) <= IMPLIED_FLUID_TOLERANCE_K) return x0;
+  const slope = impliedFluidSlope(x0);
+  if (!(slope > 0 && Number.isFinite(slope))) return Number.NaN;
+  let lo = lowC;
+  let hi = highC;
+  if (f0 < 0) lo = x0;
+  else hi = x0;
+  let x1 = x0 - f0 / slope;
+  if (!(x1 > lo && x1 < hi)) x1 = 0.5 * (lo + hi);
+  for (let step = 0; step < MAX_SECANT_STEPS; step++) {
+    const f1 = impliedFluidMinusActual(x1);
+    st.secantTrials++;
+    if (!Number.isFinite(f1)) return Number.NaN;
+    if (Math.abs(f1) <= IMPLIED_FLUID_TOLERANCE_K) return x1;
+    if (f1 < 0) lo = x1;
+    else hi = x1;
+    if (hi - lo <= SURFACE_TOLERANCE_K) return x1;
+    const denominator = f1 - f0;
+    let x2 = denominator !== 0 ? x1 - (f1 * (x1 - x0)) / denominator : Number.NaN;
+    if (!(x2 > lo && x2 < hi)) x2 = 0.5 * (lo + hi);
+    x0 = x1;
+    f0 = f1;
+    x1 = x2;
+  }
+  return Number.NaN;
 }
 
 /** The heat flow and surface temperature of a lean solve (reused; copy what you keep). */
@@ -352,7 +494,8 @@ export interface LeanSolution {
   latentGainWPerM: number;
 }
 
-const lean: LeanSolution = { heatLossWPerM: 0, surfaceTemperatureC: 0, latentGainWPerM: 0 };
+// Doubles from the start, so each solve writes them in place (see `state`).
+const lean: LeanSolution = { heatLossWPerM: Number.NaN, surfaceTemperatureC: Number.NaN, latentGainWPerM: Number.NaN };
 
 /**
  * The surface balance alone — heat flow and surface temperature, nothing else — for the
@@ -360,7 +503,8 @@ const lean: LeanSolution = { heatLossWPerM: 0, surfaceTemperatureC: 0, latentGai
  * Returns one reused record: read it before the next solve.
  */
 export function solveLean(run: ResolvedRun, guessSurfaceC?: number): LeanSolution {
-  const { surfaceC } = findSurface(run, guessSurfaceC);
+  findSurface(run, guessSurfaceC);
+  const surfaceC = state.rootC;
   lean.heatLossWPerM = state.lastHeat;
   lean.surfaceTemperatureC = surfaceC;
   lean.latentGainWPerM = state.lastLatent;
@@ -372,16 +516,19 @@ export function solveLean(run: ResolvedRun, guessSurfaceC?: number): LeanSolutio
  * through the inside film, the wall and each layer (k̄ over the layer's own span)
  * equals the heat leaving the surface by convection and radiation. The unknown is
  * the surface temperature; marching inward from a trial surface temperature with
- * the surface's q′ gives the fluid temperature that trial implies, and Brent's
- * method drives that to the real fluid temperature. The implied fluid temperature
- * rises strictly with the trial surface temperature, and the bracket
- * [min, max] of fluid, air and surroundings temperatures always holds the root.
+ * the surface's q′ gives the fluid temperature that trial implies, and a Newton step
+ * then secant steps (Brent's method where those do not settle) drive that to the real
+ * fluid temperature, to within 1e-7 K. The implied fluid temperature rises strictly
+ * with the trial surface temperature, and the bracket [min, max] of fluid, air and
+ * surroundings temperatures always holds the root.
  *
  * @param guessSurfaceC optional warm start (e.g. the previous thickness of a series)
  */
 export function solveResolvedRun(run: ResolvedRun, guessSurfaceC?: number): CoreSolution {
-  const { surfaceC, iterations } = findSurface(run, guessSurfaceC);
+  findSurface(run, guessSurfaceC);
   const st = state;
+  const surfaceC = st.rootC;
+  const iterations = st.rootIterations;
   const nLayers = st.nLayers;
   const fluidC = st.fluidC;
   const surfaceDiameterM = st.surfaceDiameterM;
