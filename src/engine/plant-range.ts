@@ -3,7 +3,7 @@ import { HOURS_PER_YEAR } from './physical-constants';
 import type { ParsedPlantInput } from './plant-input';
 import type { PlantResult, Range } from './plant-result';
 import type { SampleTerms } from './run-estimate';
-import { CONFIDENCE_SPREADS, nextDraw, quantileSorted, seedDraws, triangularFactor, type Confidence } from './uncertainty';
+import { CONFIDENCE_SPREADS, fillTriangularOffsets, quantileSorted, seedDraws, type Confidence } from './uncertainty';
 
 /** The inputs the range samples, in words for the result. */
 export const SAMPLED_INPUTS = [
@@ -103,6 +103,8 @@ const INSTALLED_FIXED = 25;
 const PRICE_SPREAD = 26;
 const COLD = 27;
 const RUN_RECORD = 28;
+/** Draws of a sample shared by every run: hours, fuel price, boiler efficiency, air, air speed, emittance, condition, installed price. */
+const SHARED_DRAWS = 8;
 
 /** One figure per sample, filled by {@link drawSamples}. */
 interface SampleColumns {
@@ -179,17 +181,23 @@ function drawSamples(
     runs[o + PRICE_SPREAD] = t.priceSpread;
     runs[o + COLD] = t.cold ? 1 : 0;
   }
+  // Each sample draws the shared factors, then each run's length and (a damaged run) its bare share.
+  let drawsPerSample = SHARED_DRAWS;
+  for (let o = 0; o < runs.length; o += RUN_RECORD) drawsPerSample += runs[o + BARE_FRACTION_SPREAD]! > 0 ? 2 : 1;
+  const offsets = new Float64Array(drawsPerSample);
   for (let s = 0; s < n; s++) {
-    const hoursFactor = triangularFactor(hoursSpread, nextDraw());
-    const fuelFactor = triangularFactor(priceSpread, nextDraw());
+    fillTriangularOffsets(offsets, drawsPerSample);
+    const hoursFactor = 1 + hoursSpread * offsets[0]!;
+    const fuelFactor = 1 + priceSpread * offsets[1]!;
     // The efficiency cannot pass 1, so its factor is capped where it would.
-    const efficiencyFactor = Math.min(triangularFactor(efficiencySpread, nextDraw()), 1 / boilerEfficiency);
+    const efficiencyFactor = Math.min(1 + efficiencySpread * offsets[2]!, 1 / boilerEfficiency);
     // Shared by every run of the sample: the air, the surfaces and the prices err together.
-    const airOffset = triangularFactor(1, nextDraw()) - 1;
-    const speedOffset = triangularFactor(1, nextDraw()) - 1;
-    const emittanceOffset = triangularFactor(1, nextDraw()) - 1;
-    const conditionOffset = triangularFactor(1, nextDraw()) - 1;
-    const priceOffset = triangularFactor(1, nextDraw()) - 1;
+    const airOffset = 1 + offsets[3]! - 1;
+    const speedOffset = 1 + offsets[4]! - 1;
+    const emittanceOffset = 1 + offsets[5]! - 1;
+    const conditionOffset = 1 + offsets[6]! - 1;
+    const priceOffset = 1 + offsets[7]! - 1;
+    let k = SHARED_DRAWS;
     let currentCost = 0;
     let currentHeat = 0;
     let currentCo2 = 0;
@@ -198,10 +206,10 @@ function drawSamples(
     let proposedCo2 = 0;
     let installed = 0;
     for (let o = 0; o < runs.length; o += RUN_RECORD) {
-      const length = runs[o + LENGTH_M]! * triangularFactor(runs[o + LENGTH_SPREAD]!, nextDraw());
+      const length = runs[o + LENGTH_M]! * (1 + runs[o + LENGTH_SPREAD]! * offsets[k++]!);
       const bareFractionSpread = runs[o + BARE_FRACTION_SPREAD]!;
       const fraction =
-        bareFractionSpread > 0 ? Math.min(1, Math.max(0, runs[o + BARE_FRACTION]! * triangularFactor(bareFractionSpread, nextDraw()))) : runs[o + BARE_FRACTION]!;
+        bareFractionSpread > 0 ? Math.min(1, Math.max(0, runs[o + BARE_FRACTION]! * (1 + bareFractionSpread * offsets[k++]!))) : runs[o + BARE_FRACTION]!;
       const airSpread = runs[o + AIR_SPREAD_K]!;
       const bareFactor = Math.max(
         0,

@@ -37,11 +37,32 @@ export function nextDraw(): number {
 
 /** A symmetric triangular multiplier on [1 − s, 1 + s] with mode 1, from a uniform u. */
 export function triangularFactor(spread: number, u: number): number {
+  return 1 + spread * triangularOffset(u);
+}
+
+/** The offset of a triangular multiplier from its mode, on [−1, 1], from a uniform u: the factor is 1 + spread × offset. */
+export function triangularOffset(u: number): number {
   // One square root either side of the mode, chosen by value rather than by branch: u is as
   // likely below ½ as above, so a branch would be mispredicted half the time.
   const low = u < 0.5;
   const root = Math.sqrt(low ? 2 * u : 2 * (1 - u));
-  return 1 + spread * (low ? root - 1 : 1 - root);
+  return low ? root - 1 : 1 - root;
+}
+
+/**
+ * The triangular offsets of the stream's next `count` draws, in order, written into `out` — the
+ * same numbers as `count` calls of {@link triangularOffset}({@link nextDraw}()), in one tight
+ * loop that keeps the stream's state in a register.
+ */
+export function fillTriangularOffsets(out: Float64Array, count: number): void {
+  let state = (drawState[0] as number) | 0;
+  for (let k = 0; k < count; k++) {
+    state = (state + 0x6d2b79f5) | 0;
+    let t = Math.imul(state ^ (state >>> 15), state | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    out[k] = triangularOffset(((t ^ (t >>> 14)) >>> 0) / 4294967296);
+  }
+  drawState[0] = state;
 }
 
 /** Value at quantile p (0–1) of a sorted array, linear between order statistics. */
