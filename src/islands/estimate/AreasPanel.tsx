@@ -8,7 +8,8 @@ import type { AreaPresetId } from '../../engine';
 import { AREA_KIND_CHOICES } from '../../lib/presentation/pick-lists';
 import { displayUnit, formatForInput, type DisplayQuantity, type UnitSystem } from '../../lib/units-display';
 import { areaPreset, newArea, type DraftValues } from './draft';
-import { NumberField, SelectField, TextField, useUnitSystem } from './fields';
+import { NumberField, SelectField, SureChoice, TextField, useUnitSystem } from './fields';
+import { areaConfidence } from './confidence';
 
 /** A typical value as the box would show it: "86" (°F), "40" (%). */
 function usual(value: number, quantity: DisplayQuantity, system: UnitSystem): string {
@@ -91,6 +92,11 @@ function AreaCard({ index, onRemove }: { index: number; onRemove: () => void }) 
             placeholder={placeholder(preset?.design.wetRelativeHumidityPercent, 'percent')}
           />
         </div>
+        <SureChoice
+          name={`${base}.confidence`}
+          about="this area’s air"
+          auto={areaConfidence(area as { average?: Record<string, unknown>; design?: Record<string, unknown> } | undefined)}
+        />
       </details>
     </section>
   );

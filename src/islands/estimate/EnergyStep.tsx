@@ -4,7 +4,8 @@ import { FUELS, type FuelId } from '../../engine';
 import { formatNumber } from '../../lib/presentation/rounding';
 import { PRICE_UNIT_NAMES } from './price-units';
 import { CURRENCIES, defaultPriceUnit, draftMarket, fuelById, type DraftValues } from './draft';
-import { GuessToggle, NumberField, SelectField, useUnitSystem } from './fields';
+import { NumberField, SelectField, SureChoice, useUnitSystem } from './fields';
+import { efficiencyConfidence } from './confidence';
 
 
 /** Short names of the emission-factor sources for the drop-down; the full citation shows with the results. */
@@ -18,6 +19,7 @@ export function EnergyStep() {
   const { setValue, getValues } = useFormContext<DraftValues>();
   const system = useUnitSystem();
   const fuelId = useWatch<DraftValues, 'estimate.energy.fuel'>({ name: 'estimate.energy.fuel' });
+  const efficiency = useWatch<DraftValues, 'estimate.energy.boilerEfficiency'>({ name: 'estimate.energy.boilerEfficiency' });
   const fuel = fuelById(fuelId) ?? FUELS[0];
   const efficiencyPercent = formatNumber(fuel.defaultBoilerEfficiency * 100);
 
@@ -61,7 +63,7 @@ export function EnergyStep() {
               name="estimate.energy.price"
               hint="The bill’s total divided by the quantity, with delivery charges and taxes."
             />
-            <GuessToggle name="estimate.energy.priceConfidence" label="The price is a guess" />
+            <SureChoice name="estimate.energy.priceConfidence" about="the price" auto="estimated" />
           </div>
           <SelectField
             name="estimate.energy.priceUnit"
@@ -78,7 +80,7 @@ export function EnergyStep() {
           placeholder={efficiencyPercent}
           hint={`Fuel turned into useful heat over a season. Leave it empty and Lagwise uses ${efficiencyPercent} %, usual for ${fuel.name.toLowerCase()}.`}
         />
-        <GuessToggle name="estimate.energy.boilerEfficiencyConfidence" label="The efficiency is a guess" />
+        <SureChoice name="estimate.energy.boilerEfficiencyConfidence" about="the efficiency" auto={efficiencyConfidence(efficiency)} />
       </div>
 
       {fuel.id !== 'electricity' && (

@@ -19,6 +19,7 @@ import {
   sendAssessment,
   startNewDraft,
   updateLiveEstimate,
+  wasTyped,
 } from './store';
 import {
   freshValues,
@@ -75,7 +76,7 @@ function syncStore(values: unknown, step: StepId): void {
   saveDraftValues(values as Partial<DraftValues>);
   $stepsWithProblems.set(stepsWithProblems(values));
   if (STEPS_WITH_LIVE_RESULTS.includes(step)) {
-    updateLiveEstimate(validPlantInput((values as Partial<DraftValues>).estimate, (values as Partial<DraftValues>).plant?.countryCode));
+    updateLiveEstimate(validPlantInput((values as Partial<DraftValues>).estimate, (values as Partial<DraftValues>).plant?.countryCode, wasTyped));
   }
 }
 

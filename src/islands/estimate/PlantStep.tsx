@@ -4,17 +4,22 @@ import { countryOptions, plantTypes } from '../../schemas/assessment';
 import { isCountryCode, postalFormats } from '../../lib/routing/postal-code';
 import { CoverageNotice } from './CoverageNotice';
 import { currencyOfCountry, draftMarket, settleMarket, type DraftValues } from './draft';
-import { GuessToggle, NumberField, SelectField, TextField } from './fields';
+import { NumberField, SelectField, SureChoice, TextField } from './fields';
+import { conditionsConfidence, hoursConfidence } from './confidence';
+import { wasTyped } from './store';
 
 export function PlantStep() {
   const { setValue, getValues } = useFormContext<DraftValues>();
   const country = useWatch<DraftValues, 'plant.countryCode'>({ name: 'plant.countryCode' });
   const example = country && isCountryCode(country) ? postalFormats[country].example : undefined;
+  const [hours, conditions] = useWatch<DraftValues, ['estimate.operatingHoursPerYear', 'estimate.conditions']>({
+    name: ['estimate.operatingHoursPerYear', 'estimate.conditions'],
+  });
   return (
     <div className="step-body">
       <p className="step-lead">
-        A few facts about the plant. Guesses are fine: tick “a guess” and the range around each result
-        widens to match.
+        A few facts about the plant. Guesses are fine: the usual figures are filled in and count as
+        guesses, and the range around each result widens to match.
       </p>
 
       <div className="field-grid">
@@ -55,7 +60,7 @@ export function PlantStep() {
           whole
           hint="Hours a year the lines are hot or cold. One shift five days a week is about 2,000 h; two shifts about 4,000 h; round the clock 8,760 h."
         />
-        <GuessToggle name="estimate.operatingHoursConfidence" label="The hours are a guess" />
+        <SureChoice name="estimate.operatingHoursConfidence" about="the hours" auto={hoursConfidence(hours, wasTyped)} />
       </div>
 
       <fieldset className="group">
@@ -93,6 +98,12 @@ export function PlantStep() {
         optional
         hint="Thinner air lowers the boiling point of steam a little."
         className="max-w-sm"
+      />
+
+      <SureChoice
+        name="estimate.conditions.confidence"
+        about="the air figures"
+        auto={conditionsConfidence(conditions as Record<string, unknown> | undefined, wasTyped)}
       />
     </div>
   );

@@ -15,7 +15,7 @@ import { formatQuantity, formatTemperature } from '../../lib/presentation/roundi
 import { BARE_FINISH_CHOICES, FITTING_KIND_CHOICES } from '../../lib/presentation/pick-lists';
 import { displayUnit, formatForInput, type DisplayQuantity, type UnitSystem } from '../../lib/units-display';
 import { draftMarket, existingInsulationDefaults, pipeStandard, serviceCondition, type DraftValues } from './draft';
-import { ChoiceField, CheckField, GuessToggle, NumberField, SelectField, TextField, useHasErrorUnder, useUnitSystem, type Option } from './fields';
+import { ChoiceField, CheckField, NumberField, SureChoice, SelectField, TextField, useHasErrorUnder, useUnitSystem, type Option } from './fields';
 import { PhotoPicker } from './PhotoPicker';
 import { FittingsList } from './FittingsList';
 import { WherePick } from './WherePick';
@@ -223,7 +223,7 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
 
       <div className="field-with-guess">
         <NumberField name={`${base}.lengthM`} hint="End to end, bends included. Pacing it out is fine." />
-        <GuessToggle name={`${base}.lengthConfidence`} label="The length is a guess" />
+        <SureChoice name={`${base}.lengthConfidence`} about="the length" auto="estimated" />
       </div>
 
       <WherePick base={base} ambient={ambient} />
@@ -256,7 +256,7 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
         {state === 'damaged' && (
           <div className="field-with-guess">
             <NumberField name={`${base}.current.bareFraction`} hint="Roughly how much of it is bare: half the lagging missing is 50 %." />
-            <GuessToggle name={`${base}.current.bareFractionConfidence`} label="The share is a guess" />
+            <SureChoice name={`${base}.current.bareFractionConfidence`} about="the share" auto="estimated" />
           </div>
         )}
         {state !== 'insulated' && (

@@ -21,6 +21,7 @@ function olderDraft(): Partial<DraftValues> {
   });
   const estimate = values.estimate as Record<string, unknown>;
   delete estimate.areas;
+  estimate.conditions = { ...(estimate.conditions as object), confidence: 'guessed' };
   values.estimate.energy.price = 1.35;
   return JSON.parse(JSON.stringify(values)) as Partial<DraftValues>;
 }
@@ -37,6 +38,8 @@ describe('drafts kept by an older form', () => {
     expect(run).not.toHaveProperty('flangePairs');
     expect(run).not.toHaveProperty('fittingsInsulated');
     expect(migrated.estimate?.areas).toEqual([]);
+    // The older form set the air's confidence itself; now an untouched figure is sent as a guess and a typed one as near enough.
+    expect(migrated.estimate?.conditions).not.toHaveProperty('confidence');
   });
 
   it('keep a bare run’s fittings uncovered whatever the old tick said', () => {

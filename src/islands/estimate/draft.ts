@@ -23,6 +23,7 @@ import {
 } from '../../engine';
 import { createAssessmentSchema, type CreateAssessmentInput } from '../../schemas/assessment';
 import type { UnitSystem } from '../../lib/units-display';
+import { NOTHING_TYPED, withConfidences, type WasTyped } from './confidence';
 
 /** The form's values: exactly what POST /api/assessments parses. */
 export type DraftValues = CreateAssessmentInput;
@@ -264,7 +265,7 @@ const countOf = (value: unknown) => (typeof value === 'number' && Number.isInteg
 
 /**
  * A draft kept by an older version of the form, brought to today's shape: a list of areas
- * where there was none, and the older valve and flange-pair counts (with "its valves and
+ * where there was none, the air's confidence left for the person to say, and the older valve and flange-pair counts (with "its valves and
  * flanges are lagged too") moved into the run's list of fittings, which the form now offers.
  */
 export function migrateDraft(stored: Partial<DraftValues>): Partial<DraftValues> {
@@ -281,8 +282,11 @@ export function migrateDraft(stored: Partial<DraftValues>): Partial<DraftValues>
     if (countOf(flangePairs) > 0) fittings.push({ type: 'flange-pair', count: countOf(flangePairs), covered });
     return { ...rest, fittings };
   });
+  const older = !Array.isArray(estimate.areas);
   const areas = Array.isArray(estimate.areas) ? estimate.areas : [];
-  return { ...stored, estimate: { ...estimate, areas, runs: migratedRuns } as DraftValues['estimate'] };
+  // The older form filled in the air's confidence itself ('guessed') and never let anyone change it.
+  const conditions = isRecord(estimate.conditions) && older ? (({ confidence: _filled, ...rest }) => rest)(estimate.conditions) : estimate.conditions;
+  return { ...stored, estimate: { ...estimate, ...(conditions !== undefined ? { conditions } : {}), areas, runs: migratedRuns } as DraftValues['estimate'] };
 }
 
 /** A copy of a run with its own id, placed after it; photos stay with the original. */
@@ -297,6 +301,12 @@ export function guessUnitSystem(): UnitSystem {
   return /^(en-US|en-LR|es-US)$/i.test(language) ? 'US' : 'SI';
 }
 
+/** The plant-wide air the form fills in, without a confidence: that is said by the person or worked out when sent. */
+function startingConditions(): DraftValues['estimate']['conditions'] {
+  const { confidence: _unsaid, ...conditions } = PLANT_DEFAULTS.conditions;
+  return conditions;
+}
+
 export function freshValues(system: UnitSystem = guessUnitSystem()): DraftValues {
   const fuel: FuelId = 'natural-gas';
   const market = draftMarket(undefined, system);
@@ -306,7 +316,7 @@ export function freshValues(system: UnitSystem = guessUnitSystem()): DraftValues
     estimate: {
       unitSystem: system,
       operatingHoursPerYear: PLANT_DEFAULTS.operatingHoursPerYear,
-      conditions: { ...PLANT_DEFAULTS.conditions },
+      conditions: startingConditions(),
       energy: {
         fuel,
         price: notYetAnswered<number>(),
@@ -377,15 +387,16 @@ function runForPosting(run: DraftRun, areaIds: ReadonlySet<string>): DraftRun {
  * The PlantInput the draft describes, as POST /api/estimate takes it. The plant's country
  * sets the market (which stock thicknesses and prices apply); the display units never do.
  */
-export function toPlantInput(estimate: PlantInput, countryCode?: string): PlantInput {
+export function toPlantInput(estimate: PlantInput, countryCode?: string, wasTyped: WasTyped = NOTHING_TYPED): PlantInput {
   const market = estimate.market ?? (countryCode ? marketForCountry(countryCode) : undefined);
   const areaIds = new Set((estimate.areas ?? []).map((area) => area.id));
-  return withoutUndefined({ ...estimate, ...(market ? { market } : {}), runs: estimate.runs.map((run) => runForPosting(run, areaIds)) });
+  const sure = withConfidences(estimate, wasTyped);
+  return withoutUndefined({ ...sure, ...(market ? { market } : {}), runs: estimate.runs.map((run) => runForPosting(run, areaIds)) });
 }
 
-/** The body of the `assessment` part: the whole draft with the estimate cleaned up. */
-export function toAssessmentInput(values: DraftValues): CreateAssessmentInput {
-  return withoutUndefined({ ...values, estimate: toPlantInput(values.estimate, values.plant?.countryCode) });
+/** The body of the `assessment` part: the whole draft with the estimate cleaned up and its confidences said. */
+export function toAssessmentInput(values: DraftValues, wasTyped: WasTyped = NOTHING_TYPED): CreateAssessmentInput {
+  return withoutUndefined({ ...values, estimate: toPlantInput(values.estimate, values.plant?.countryCode, wasTyped) });
 }
 
 /** Steps with at least one problem, read from the same schema the server parses with. */
@@ -398,8 +409,8 @@ export function stepsWithProblems(values: unknown): Set<StepId> {
 }
 
 /** The estimate input when the draft's estimate part is complete and valid, else null. */
-export function validPlantInput(estimate: unknown, countryCode?: string): PlantInput | null {
+export function validPlantInput(estimate: unknown, countryCode?: string, wasTyped: WasTyped = NOTHING_TYPED): PlantInput | null {
   if (typeof estimate !== 'object' || estimate === null || !Array.isArray((estimate as PlantInput).runs)) return null;
-  const input = toPlantInput(estimate as PlantInput, countryCode);
+  const input = toPlantInput(estimate as PlantInput, countryCode, wasTyped);
   return plantInputSchema.safeParse(input).success ? input : null;
 }

@@ -20,6 +20,7 @@ import {
 } from '../../lib/units-display';
 import { formFieldAt, type FormField } from '../../lib/form-fields';
 import type { DraftValues } from './draft';
+import type { Confidence } from './confidence';
 import { fieldContextFrom } from './resolver';
 import { rememberTyped, typedFigure } from './store';
 
@@ -352,32 +353,57 @@ export function ChoiceField({ name, legend, options, hint, onChosen, inline }: C
   );
 }
 
-interface GuessToggleProps {
-  /** A `...Confidence` field of the engine: ticked means 'guessed'. */
+const SURE_OPTIONS = [
+  { value: 'guessed', label: 'A guess' },
+  { value: 'estimated', label: 'Near enough' },
+  { value: 'measured', label: 'Known', note: 'measured, metered or from a bill' },
+] as const satisfies readonly { value: Confidence; label: string; note?: string }[];
+
+interface SureChoiceProps {
+  /** A `...confidence` field of the engine. */
   name: Name;
-  label: string;
+  /** What it is about, inside a question: "the hours". */
+  about: string;
+  /** What the form sends while the person has not said: a guess for an untouched usual value, near enough for a typed one. */
+  auto: Confidence;
 }
 
 /**
- * "This is a guess": marks the engine's confidence field 'guessed' (which widens the range);
- * unticked leaves it to the engine's default for that field.
+ * "How sure are you?": a guess, near enough or known. Until the person says, the choice
+ * shown is what the form sends on its own (`auto`); the engine widens the range by it.
  */
-export function GuessToggle({ name, label }: GuessToggleProps) {
+export function SureChoice({ name, about, auto }: SureChoiceProps) {
   const { field } = useController<DraftValues>({ name });
   const id = fieldId(name);
+  const said = typeof field.value === 'string' ? (field.value as Confidence) : undefined;
+  const shown = said ?? auto;
   return (
-    <label className="guess" htmlFor={id}>
-      <input
-        ref={field.ref}
-        id={id}
-        type="checkbox"
-        className="check-input"
-        checked={field.value === 'guessed'}
-        onChange={(event) => field.onChange(event.target.checked ? 'guessed' : undefined)}
-        onBlur={field.onBlur}
-      />
-      <span>{label}</span>
-    </label>
+    <fieldset className="sure" aria-describedby={said === undefined && auto === 'guessed' ? `${id}-note` : undefined}>
+      <legend className="sure-legend">How sure are you of {about}?</legend>
+      <div className="sure-row">
+        {SURE_OPTIONS.map((option) => (
+          <label key={option.value} className="sure-option" htmlFor={`${id}-${option.value}`} title={'note' in option ? option.note : undefined}>
+            <input
+              ref={option.value === shown ? field.ref : undefined}
+              type="radio"
+              id={`${id}-${option.value}`}
+              name={id}
+              value={option.value}
+              className="choice-input"
+              checked={shown === option.value}
+              onChange={() => field.onChange(option.value)}
+              onBlur={field.onBlur}
+            />
+            <span>{option.label}</span>
+          </label>
+        ))}
+      </div>
+      {said === undefined && auto === 'guessed' && (
+        <p id={`${id}-note`} className="sure-note">
+          A usual figure: counted as a guess until you type your own.
+        </p>
+      )}
+    </fieldset>
   );
 }
 

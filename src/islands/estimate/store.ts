@@ -68,6 +68,13 @@ export function typedFigure(path: string, system: string, valueSI: unknown): str
   return typedSystem === system && Number(typedSI) === valueSI ? text.join('|') : undefined;
 }
 
+/** Whether the value at a path is one the person typed (in whichever units), not one the form filled in. */
+export function wasTyped(path: string, valueSI: unknown): boolean {
+  const entry = $typedFigures.get()[path];
+  if (!entry || typeof valueSI !== 'number') return false;
+  return Number(entry.split('|')[1]) === valueSI;
+}
+
 export function rememberTyped(path: string, system: string, valueSI: number, text: string): void {
   $typedFigures.setKey(path, `${system}|${valueSI}|${text}`);
 }
@@ -255,7 +262,7 @@ export async function sendAssessment(values: DraftValues): Promise<Submission> {
   if (now.state === 'sending') return now;
   $submission.set({ state: 'sending' });
   const form = new FormData();
-  form.append('assessment', JSON.stringify(toAssessmentInput(values)));
+  form.append('assessment', JSON.stringify(toAssessmentInput(values, wasTyped)));
   const runIds = new Set(values.estimate.runs.map((run) => run.id));
   for (const [runId, files] of Object.entries($photos.get())) {
     if (!runIds.has(runId)) continue;
