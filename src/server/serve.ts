@@ -3,16 +3,19 @@
  * behind a thin Node HTTP layer that does what must happen before a request reaches Astro:
  * the client's address from trusted proxies only, body sizes checked before a byte is read
  * (and `Expect: 100-continue` refused past the cap), the baseline security headers on every
- * answer, server timeouts, and a process that outlives a database restart.
+ * answer, compressed answers (brotli or gzip, as the client accepts) for text, JSON, scripts and
+ * styles, server timeouts, and a process that outlives a database restart.
  *
  * Run after `astro build`: `node --import tsx src/server/serve.ts` (npm start does).
  */
 import http, { type IncomingMessage, type ServerResponse } from 'node:http';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
+import compression from 'compression';
 import { installProcessGuards } from '../lib/process-guards';
 import { BodyTooLarge, describeBytes, maxBodyBytesFor } from './body-limits';
 import { clientAddressOf, isTrustedPeer, trustedProxies } from './client-address';
+import { compressionOptions } from './compression-options';
 import { applyBaselineHeaders } from './security-headers';
 
 installProcessGuards('web');
@@ -80,6 +83,8 @@ async function* cappedBody(req: IncomingMessage, maxBytes: number): AsyncGenerat
   }
 }
 
+const compress = compression(compressionOptions);
+
 function handle(req: IncomingMessage, res: ServerResponse): void {
   res.on('error', (error) => console.error(`[web] response failed: ${error.message}`));
   applyBaselineHeaders(res, { https: publicHttps });
@@ -96,7 +101,11 @@ function handle(req: IncomingMessage, res: ServerResponse): void {
   if (req.method !== 'GET' && req.method !== 'HEAD') {
     Object.defineProperty(req, 'body', { value: cappedBody(req, maxBytes), configurable: true });
   }
-  handler(req, res);
+  // The middleware wraps res.write/end; errors it passes on have no place to go but the log.
+  compress(req as Parameters<typeof compress>[0], res as Parameters<typeof compress>[1], (error?: unknown) => {
+    if (error) console.error(`[web] compression failed: ${String(error)}`);
+    handler(req, res);
+  });
 }
 
 const server = http.createServer({ requestTimeout: 120_000, headersTimeout: 30_000, keepAliveTimeout: 5_000 }, handle);
