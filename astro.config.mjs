@@ -44,5 +44,13 @@ export default defineConfig({
   },
   vite: {
     plugins: [tailwindcss()],
+    build: {
+      rollupOptions: {
+        // The engine's and the contracts' modules do nothing on import but declare constants and
+        // schemas; saying so lets a page that needs one list from them leave the rest (and the
+        // validation library) out of its first load.
+        treeshake: { moduleSideEffects: (id) => !/[\\/]src[\\/](engine|schemas)[\\/]/.test(id) },
+      },
+    },
   },
 });

@@ -1,7 +1,7 @@
 /**
  * The JavaScript a built page loads before anything is clicked: its module scripts and island
  * components with their static imports, followed through, gzip-compressed. Lazy chunks
- * (dynamic import) are not counted. `npm run budget` prints it for the estimate page.
+ * (dynamic import) are not counted. `npm run budget` (./budget.ts) prints it for the estimate page.
  */
 import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
@@ -36,10 +36,4 @@ export function initialJavaScript(clientDir: string, pagePath: string): JsWeight
   const files = [...sizes].map(([url, gzipBytes]) => ({ url, gzipBytes })).sort((a, b) => b.gzipBytes - a.gzipBytes);
   if (inline.trim()) files.push({ url: '(inline scripts)', gzipBytes: gzipSync(Buffer.from(inline), { level: 9 }).length });
   return { totalGzipBytes: files.reduce((sum, f) => sum + f.gzipBytes, 0), files };
-}
-
-if (import.meta.url === `file://${process.argv[1]}`) {
-  const weight = initialJavaScript(path.resolve('dist/client'), 'estimate/index.html');
-  for (const f of weight.files) console.log(`${(f.gzipBytes / 1000).toFixed(1).padStart(7)} kB  ${f.url}`);
-  console.log(`${(weight.totalGzipBytes / 1000).toFixed(1).padStart(7)} kB  gzip, initial JavaScript of /estimate (budget 150 kB)`);
 }

@@ -63,6 +63,7 @@ export {
   type ParsedPlantInput,
   type PlantRunInput,
 } from './plant-input';
+export { PLANT_INPUT_DEFAULTS, EXISTING_LAGGING_DEFAULTS } from './input-defaults';
 export { AREA_PRESETS, AREA_PRESET_IDS, DEFAULT_DESIGN, type AreaPreset, type AreaPresetId } from './data/areas';
 export { MARKETS, MARKET_IDS, marketForCountry, type Market, type MarketId } from './data/markets';
 export { c585ActualThicknessM, c585OuterDiameterM } from './data/c585';
@@ -103,7 +104,7 @@ export {
   fittingCoverCost,
 } from './economics';
 
-// Catalogues for the form's drop-downs.
+// Catalogs for the form's drop-downs.
 export { PIPE_STANDARDS, PIPE_STANDARD_IDS, type PipeStandard, type PipeSizeEntry, type PipeStandardId } from './data/pipe-dimensions';
 export { PIPE_MATERIALS, PIPE_MATERIAL_IDS, type PipeMaterialId } from './data/pipe-materials';
 export {

@@ -6,6 +6,7 @@ import { EMISSION_SOURCE_IDS, FUEL_IDS, FUEL_PRICE_UNITS } from './data/fuels';
 import { INSULATION_MATERIAL_IDS } from './data/insulation-materials';
 import { AREA_PRESET_IDS } from './data/areas';
 import { FITTING_TYPE_IDS } from './data/fittings';
+import { EXISTING_LAGGING_DEFAULTS, PLANT_INPUT_DEFAULTS } from './input-defaults';
 import { MARKET_IDS } from './data/markets';
 import { LAGGING_CONDITION_IDS } from './data/lagging-condition';
 import { BARE_FINISH_IDS, JACKET_IDS } from './data/surfaces';
@@ -48,7 +49,7 @@ export const ambientSchema = z.discriminatedUnion(
     z.object({ kind: z.literal('indoor-still') }),
     z.object({
       kind: z.literal('indoor-draughty'),
-      airSpeedMPerS: quantity('Draught air speed', 'm/s', { min: 0, max: 10 }).optional(),
+      airSpeedMPerS: quantity('Draft air speed', 'm/s', { min: 0, max: 10 }).optional(),
     }),
     z.object({
       kind: z.literal('outdoor'),
@@ -70,16 +71,16 @@ export const currentStateSchema = z.discriminatedUnion(
       state: z.literal('damaged'),
       bareFraction: quantity('Damaged (bare) fraction', '', { min: 0, max: 1 }),
       bareFractionConfidence: confidence('Damaged fraction confidence').default('estimated'),
-      material: oneOf('Existing insulation material', INSULATION_MATERIAL_IDS).default('mineral-wool'),
-      thicknessM: thickness('Existing insulation thickness').default(0.025),
-      jacket: oneOf('Existing jacket', JACKET_IDS).default('all-service-jacket'),
+      material: oneOf('Existing insulation material', INSULATION_MATERIAL_IDS).default(EXISTING_LAGGING_DEFAULTS.material),
+      thicknessM: thickness('Existing insulation thickness').default(EXISTING_LAGGING_DEFAULTS.thicknessM),
+      jacket: oneOf('Existing jacket', JACKET_IDS).default(EXISTING_LAGGING_DEFAULTS.jacket),
       condition: laggingCondition,
     }),
     z.object({
       state: z.literal('insulated'),
       material: oneOf('Existing insulation material', INSULATION_MATERIAL_IDS),
       thicknessM: thickness('Existing insulation thickness'),
-      jacket: oneOf('Existing jacket', JACKET_IDS).default('all-service-jacket'),
+      jacket: oneOf('Existing jacket', JACKET_IDS).default(EXISTING_LAGGING_DEFAULTS.jacket),
       condition: laggingCondition,
     }),
   ],
@@ -92,12 +93,12 @@ export type OptionKind = (typeof OPTION_KINDS)[number];
 
 /**
  * A typed installed price for one run, overriding the price table (a consultant's quote).
- * Give a price per metre of pipe (and per fitting cover), or a lump sum for the whole job.
+ * Give a price per meter of pipe (and per fitting cover), or a lump sum for the whole job.
  */
 export const runPriceSchema = z
   .object({
-    /** Installed price per metre of pipe insulated, in the plant's currency. */
-    perMetre: quantity('Installed price per metre', '', { min: 0, max: 1e6, kind: 'money' }).optional(),
+    /** Installed price per meter of pipe insulated, in the plant's currency. */
+    perMetre: quantity('Installed price per meter', '', { min: 0, max: 1e6, kind: 'money' }).optional(),
     /** Price of one removable fitting cover. */
     coverEach: quantity('Price of one fitting cover', '', { min: 0, max: 1e6, kind: 'money' }).optional(),
     /** The whole job on this run, in place of the per-metre figures. */
@@ -105,7 +106,7 @@ export const runPriceSchema = z
   })
   .superRefine((price, ctx) => {
     if (price.lumpSum !== undefined && (price.perMetre !== undefined || price.coverEach !== undefined)) {
-      ctx.addIssue({ code: 'custom', path: ['lumpSum'], message: 'Give either a lump sum or prices per metre and per cover, not both.' });
+      ctx.addIssue({ code: 'custom', path: ['lumpSum'], message: 'Give either a lump sum or prices per meter and per cover, not both.' });
     }
   });
 
@@ -136,8 +137,8 @@ export const fittingInputSchema = z.object({
 
 /**
  * Site measurements of one run (a consultant's walk-round or an owner's thermometer). A
- * measured bare surface temperature with the measured air gives the loss per metre directly;
- * on an insulated run, measured ÷ modelled loss becomes the insulation's condition factor
+ * measured bare surface temperature with the measured air gives the loss per meter directly;
+ * on an insulated run, measured ÷ modeled loss becomes the insulation's condition factor
  * where the surface is more than 10 K from the air.
  */
 export const measurementsSchema = z
@@ -269,7 +270,7 @@ export const priceTableSchema = z
     thicknessesM: z
       .array(thickness('Price table thickness'))
       .min(1, { error: 'The price table needs at least one thickness.' }),
-    costPerMetre: z.array(z.array(quantity('Price per metre', '', { min: 0, max: 1e6 }))),
+    costPerMetre: z.array(z.array(quantity('Price per meter', '', { min: 0, max: 1e6 }))),
     fittingCoverCostEach: z.array(quantity('Fitting cover price', '', { min: 0, max: 1e6 })),
   })
   .superRefine((table, ctx) => {
@@ -317,18 +318,18 @@ export const plantInputSchema = z
      * picks the stock thickness series (inch per ASTM C585, or mm). Display units never do.
      */
     market: oneOf('Market', MARKET_IDS).optional(),
-    operatingHoursPerYear: operatingHours('Operating hours').default(6000),
+    operatingHoursPerYear: operatingHours('Operating hours').default(PLANT_INPUT_DEFAULTS.operatingHoursPerYear),
     /** Pre-filled hours the user never changed count as guessed. */
     operatingHoursConfidence: confidence('Operating hours confidence').default('guessed'),
     conditions: z
       .object({
-        indoorAirTemperatureC: quantity('Indoor air temperature', '°C', { min: -20, max: 50 }).default(20),
-        indoorRelativeHumidityPercent: quantity('Indoor relative humidity', '%', { min: 1, max: 100 }).default(60),
-        outdoorAirTemperatureC: quantity('Outdoor air temperature', '°C', { min: -50, max: 50 }).default(10),
-        outdoorRelativeHumidityPercent: quantity('Outdoor relative humidity', '%', { min: 1, max: 100 }).default(75),
-        outdoorWindSpeedMPerS: quantity('Outdoor wind speed', 'm/s', { min: 0, max: 40 }).default(3),
-        draughtyAirSpeedMPerS: quantity('Draught air speed', 'm/s', { min: 0, max: 10 }).default(1),
-        altitudeM: quantity('Altitude', 'm', { min: -500, max: 5000 }).default(0),
+        indoorAirTemperatureC: quantity('Indoor air temperature', '°C', { min: -20, max: 50 }).default(PLANT_INPUT_DEFAULTS.conditions.indoorAirTemperatureC),
+        indoorRelativeHumidityPercent: quantity('Indoor relative humidity', '%', { min: 1, max: 100 }).default(PLANT_INPUT_DEFAULTS.conditions.indoorRelativeHumidityPercent),
+        outdoorAirTemperatureC: quantity('Outdoor air temperature', '°C', { min: -50, max: 50 }).default(PLANT_INPUT_DEFAULTS.conditions.outdoorAirTemperatureC),
+        outdoorRelativeHumidityPercent: quantity('Outdoor relative humidity', '%', { min: 1, max: 100 }).default(PLANT_INPUT_DEFAULTS.conditions.outdoorRelativeHumidityPercent),
+        outdoorWindSpeedMPerS: quantity('Outdoor wind speed', 'm/s', { min: 0, max: 40 }).default(PLANT_INPUT_DEFAULTS.conditions.outdoorWindSpeedMPerS),
+        draughtyAirSpeedMPerS: quantity('Draft air speed', 'm/s', { min: 0, max: 10 }).default(PLANT_INPUT_DEFAULTS.conditions.draughtyAirSpeedMPerS),
+        altitudeM: quantity('Altitude', 'm', { min: -500, max: 5000 }).default(PLANT_INPUT_DEFAULTS.conditions.altitudeM),
         /** Design air of the plant-wide rooms (used by runs without an area); never milder than the averages. */
         design: z
           .object({
@@ -351,7 +352,7 @@ export const plantInputSchema = z
         price: quantity('Fuel price', '', { min: 0, minExclusive: true, max: 1e6 }),
         priceUnit: oneOf('Fuel price unit', FUEL_PRICE_UNITS).optional(),
         priceConfidence: confidence('Fuel price confidence').default('measured'),
-        currency: z.string().trim().min(1).max(8).default('USD'),
+        currency: z.string().trim().min(1).max(8).default(PLANT_INPUT_DEFAULTS.currency),
         boilerEfficiency: quantity('Boiler efficiency', '', { min: 0.3, max: 1 }).optional(),
         /** Left out: estimated when an efficiency is given, guessed when the fuel's default is used. */
         boilerEfficiencyConfidence: confidence('Boiler efficiency confidence').optional(),
@@ -362,11 +363,11 @@ export const plantInputSchema = z
       }),
     economics: z
       .object({
-        horizonYears: quantity('Life-cycle horizon', 'years', { min: 1, max: 50 }).default(10),
-        discountRatePercent: quantity('Discount rate', '%', { min: 0, max: 30 }).default(5),
-        fuelEscalationPercent: quantity('Fuel price escalation', '%', { min: -10, max: 30 }).default(2),
-        touchLimitC: quantity('Touch limit', '°C', { min: 30, max: 100 }).default(60),
-        condensationMarginK: quantity('Condensation margin', 'K', { min: 0, max: 10 }).default(1),
+        horizonYears: quantity('Life-cycle horizon', 'years', { min: 1, max: 50 }).default(PLANT_INPUT_DEFAULTS.economics.horizonYears),
+        discountRatePercent: quantity('Discount rate', '%', { min: 0, max: 30 }).default(PLANT_INPUT_DEFAULTS.economics.discountRatePercent),
+        fuelEscalationPercent: quantity('Fuel price escalation', '%', { min: -10, max: 30 }).default(PLANT_INPUT_DEFAULTS.economics.fuelEscalationPercent),
+        touchLimitC: quantity('Touch limit', '°C', { min: 30, max: 100 }).default(PLANT_INPUT_DEFAULTS.economics.touchLimitC),
+        condensationMarginK: quantity('Condensation margin', 'K', { min: 0, max: 10 }).default(PLANT_INPUT_DEFAULTS.economics.condensationMarginK),
       })
       .prefault({}),
     range: z

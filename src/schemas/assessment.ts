@@ -4,23 +4,11 @@
  */
 import { z } from 'zod';
 import { plantInputSchema } from '../engine';
-import { countryCodes, isCountryCode, normalisePostalCode, postalFormats } from '../lib/routing/postal-code';
+import { countryCodes, isCountryCode, normalisePostalCode } from '../lib/routing/postal-code';
+import { plantTypeIds } from './assessment-lists';
 import { textRule } from './text';
 
-export const plantTypes = [
-  { id: 'creamery', name: 'Creamery or dairy' },
-  { id: 'brewery', name: 'Brewery or distillery' },
-  { id: 'smokehouse', name: 'Smokehouse or meat plant' },
-  { id: 'bakery', name: 'Bakery' },
-  { id: 'sauce-kitchen', name: 'Soup or sauce kitchen' },
-  { id: 'juice-plant', name: 'Juice or beverage plant' },
-  { id: 'tofu-plant', name: 'Tofu or soy plant' },
-  { id: 'other-food', name: 'Other food plant' },
-] as const;
-export type PlantTypeId = (typeof plantTypes)[number]['id'];
-const plantTypeIds = plantTypes.map((t) => t.id) as [PlantTypeId, ...PlantTypeId[]];
-
-export const countryOptions = countryCodes.map((code) => ({ code, name: postalFormats[code].name }));
+export { countryOptions, MAX_PHOTO_BYTES, MAX_PHOTOS, PHOTO_FIELD, plantTypes, type PlantTypeId } from './assessment-lists';
 
 /** Where the plant is and what it makes: routing reads the country and postal code. */
 export const plantDetailsSchema = z
@@ -39,8 +27,8 @@ export const plantDetailsSchema = z
   .superRefine(
     (plant, ctx) => {
       if (!isCountryCode(plant.countryCode)) return;
-      const normalised = normalisePostalCode(plant.countryCode, plant.postalCode);
-      if (!normalised.ok) ctx.addIssue({ code: 'custom', path: ['postalCode'], message: normalised.message });
+      const normalized = normalisePostalCode(plant.countryCode, plant.postalCode);
+      if (!normalized.ok) ctx.addIssue({ code: 'custom', path: ['postalCode'], message: normalized.message });
     },
     {
       // Check the code as soon as country and code are themselves fine, even while other fields are not.
@@ -92,7 +80,3 @@ export const createAssessmentSchema = z.object({
 export type CreateAssessmentInput = z.input<typeof createAssessmentSchema>;
 export type CreateAssessment = z.output<typeof createAssessmentSchema>;
 
-/** Where a run's photos go in the multipart body: `photos.<runId>`; plant-wide photos as `photos`. */
-export const PHOTO_FIELD = 'photos';
-export const MAX_PHOTOS = 12;
-export const MAX_PHOTO_BYTES = 10 * 1024 * 1024;

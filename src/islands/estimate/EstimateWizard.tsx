@@ -5,8 +5,7 @@
 import { lazy, Suspense, useEffect, useRef, useState, type ReactNode } from 'react';
 import { FormProvider, useForm, type FieldErrors, type UseFormReturn } from 'react-hook-form';
 import { useStore } from '@nanostores/react';
-import { fieldMessage } from '../../lib/field-messages';
-import { fieldContextOf, wordedResolver } from './resolver';
+import { fieldContextOf, loadValidation, wordedResolver } from './resolver';
 import {
   $draftValues,
   $estimate,
@@ -27,18 +26,12 @@ import {
   STEPS,
   stepIndex,
   stepOfPath,
-  stepsWithProblems,
-  validPlantInput,
   type DraftValues,
   type StepId,
 } from './draft';
 import { StepList } from './StepList';
 import { UnitSwitch } from './UnitSwitch';
 import { PlantStep } from './PlantStep';
-import { EnergyStep } from './EnergyStep';
-import { ContactStep } from './ContactStep';
-import { Confirmation } from './Confirmation';
-import { ResultAnnouncer, SummaryStrip } from './SummaryStrip';
 import { ErrorSummary } from './ErrorSummary';
 import { errorMessageAt, inPageOrder, type Name } from './fields';
 
@@ -48,6 +41,13 @@ const ResultsStep = lazy(() => loadResultsStep().then((module) => ({ default: mo
 /** The runs step (the form's largest part) loads while the person answers the plant step. */
 const loadRunsStep = () => import('./RunsStep');
 const RunsStep = lazy(() => loadRunsStep().then((module) => ({ default: module.RunsStep })));
+/** The later steps, the figures strip and the confirmation load with the runs step: the plant step is all a first visit needs. */
+const loadLaterSteps = () => Promise.all([import('./EnergyStep'), import('./ContactStep'), import('./Confirmation'), import('./SummaryStrip')]);
+const EnergyStep = lazy(() => import('./EnergyStep').then((module) => ({ default: module.EnergyStep })));
+const ContactStep = lazy(() => import('./ContactStep').then((module) => ({ default: module.ContactStep })));
+const SummaryStrip = lazy(() => import('./SummaryStrip').then((module) => ({ default: module.SummaryStrip })));
+const ResultAnnouncer = lazy(() => import('./SummaryStrip').then((module) => ({ default: module.ResultAnnouncer })));
+const Confirmation = lazy(() => import('./Confirmation').then((module) => ({ default: module.Confirmation })));
 
 interface Props {
   /** The site's cautions (rendered by the page), shown with the results. */
@@ -64,7 +64,11 @@ export default function EstimateWizard({ cautions }: Props) {
   const submission = useStore($submission);
   if (!inBrowser) return null;
   if (submission.state === 'sent') {
-    return <Confirmation assessment={submission.assessment} onStartAgain={startNewDraft} />;
+    return (
+      <Suspense fallback={<p className="summary-status">Opening your confirmation…</p>}>
+        <Confirmation assessment={submission.assessment} onStartAgain={startNewDraft} />
+      </Suspense>
+    );
   }
   return <Wizard cautions={cautions} />;
 }
@@ -74,10 +78,13 @@ const STEPS_WITH_LIVE_RESULTS: readonly StepId[] = ['runs', 'results', 'contact'
 /** Keeps the store in step with the form: saves the draft, marks steps with problems, asks for the estimate. */
 function syncStore(values: unknown, step: StepId): void {
   saveDraftValues(values as Partial<DraftValues>);
-  $stepsWithProblems.set(stepsWithProblems(values));
-  if (STEPS_WITH_LIVE_RESULTS.includes(step)) {
-    updateLiveEstimate(validPlantInput((values as Partial<DraftValues>).estimate, (values as Partial<DraftValues>).plant?.countryCode, wasTyped));
-  }
+  // Checks in the order the changes came: every call waits on the one import of the checks.
+  void loadValidation().then(({ stepsWithProblems, validPlantInput }) => {
+    $stepsWithProblems.set(stepsWithProblems(values));
+    if (STEPS_WITH_LIVE_RESULTS.includes(step)) {
+      updateLiveEstimate(validPlantInput((values as Partial<DraftValues>).estimate, (values as Partial<DraftValues>).plant?.countryCode, wasTyped));
+    }
+  });
 }
 
 /** Every dotted path that carries an error message, in form order. */
@@ -152,6 +159,7 @@ function Wizard({ cautions }: Props) {
   useEffect(() => {
     if (STEPS_WITH_LIVE_RESULTS.includes(step)) void loadResultsStep();
     else void loadRunsStep();
+    void loadLaterSteps();
   }, [step]);
 
   function moveTo(target: StepId) {
@@ -199,6 +207,7 @@ function Wizard({ cautions }: Props) {
       const { failure } = outcome;
       const fieldIssues = failure.issues.filter((issue) => !issue.path.startsWith('photos') && issue.path !== '(body)');
       // The server speaks SI; its range facts are said again in the units the person typed in.
+      const { fieldMessage } = await import('../../lib/field-messages');
       const context = fieldContextOf(form.getValues());
       for (const issue of fieldIssues) {
         const message = fieldMessage({ ...issue, typed: form.getValues(issue.path as Name) }, context);
@@ -236,8 +245,10 @@ function Wizard({ cautions }: Props) {
           <UnitSwitch />
         </div>
 
-        {showStrip && <SummaryStrip live={live} onShowResults={() => moveTo('results')} />}
-        {STEPS_WITH_LIVE_RESULTS.includes(step) && <ResultAnnouncer live={live} />}
+        <Suspense fallback={null}>
+          {showStrip && <SummaryStrip live={live} onShowResults={() => moveTo('results')} />}
+          {STEPS_WITH_LIVE_RESULTS.includes(step) && <ResultAnnouncer live={live} />}
+        </Suspense>
 
         <form
           noValidate
@@ -260,7 +271,11 @@ function Wizard({ cautions }: Props) {
           <ErrorSummary step={step} notice={notice} failure={submission.state === 'failed' ? submission.failure : null} />
 
           {step === 'plant' && <PlantStep />}
-          {step === 'energy' && <EnergyStep />}
+          {step === 'energy' && (
+            <Suspense fallback={<p className="summary-status">Opening the fuel questions…</p>}>
+              <EnergyStep />
+            </Suspense>
+          )}
           {step === 'runs' && (
             <Suspense fallback={<p className="summary-status">Opening the pipe runs…</p>}>
               <RunsStep />
@@ -271,7 +286,11 @@ function Wizard({ cautions }: Props) {
               <ResultsStep live={live} cautions={cautions} />
             </Suspense>
           )}
-          {step === 'contact' && <ContactStep sending={submission.state === 'sending'} />}
+          {step === 'contact' && (
+            <Suspense fallback={<p className="summary-status">Opening the contact step…</p>}>
+              <ContactStep sending={submission.state === 'sending'} />
+            </Suspense>
+          )}
 
           <div className="step-nav">
             {index > 0 && (

@@ -4,7 +4,7 @@
  */
 import { useRef } from 'react';
 import { useStore } from '@nanostores/react';
-import { MAX_PHOTO_BYTES, MAX_PHOTOS } from '../../schemas/assessment';
+import { MAX_PHOTO_BYTES, MAX_PHOTOS } from '../../schemas/assessment-lists';
 import { $photoMessages, $photos, addPhotos, removePhoto } from './store';
 
 interface Props {

@@ -1,12 +1,15 @@
 /** Step 1: what the plant is, where it is, how long its lines run and the air around them. */
+import { lazy, Suspense } from 'react';
 import { useFormContext, useWatch } from 'react-hook-form';
-import { countryOptions, plantTypes } from '../../schemas/assessment';
+import { countryOptions, plantTypes } from '../../schemas/assessment-lists';
 import { isCountryCode, postalFormats } from '../../lib/routing/postal-code';
-import { CoverageNotice } from './CoverageNotice';
 import { currencyOfCountry, draftMarket, settleMarket, type DraftValues } from './draft';
 import { NumberField, SelectField, SureChoice, TextField } from './fields';
 import { conditionsConfidence, hoursConfidence } from './confidence';
 import { wasTyped } from './store';
+
+/** Whether a consultant covers the postal code: it speaks once a code is typed, so it loads after the form. */
+const CoverageNotice = lazy(() => import('./CoverageNotice').then((module) => ({ default: module.CoverageNotice })));
 
 export function PlantStep() {
   const { setValue, getValues } = useFormContext<DraftValues>();
@@ -38,7 +41,7 @@ export function PlantStep() {
           onChosen={(code) => {
             const currency = currencyOfCountry(code);
             if (currency) setValue('estimate.energy.currency', currency, { shouldDirty: true });
-            // The country decides the catalogues: starting values follow it, chosen ones stay.
+            // The country decides the catalogs: starting values follow it, chosen ones stay.
             const settled = settleMarket(getValues(), draftMarket(code, getValues('estimate.unitSystem') === 'US' ? 'US' : 'SI'));
             if (settled.priceUnit) setValue('estimate.energy.priceUnit', settled.priceUnit, { shouldDirty: true });
             for (const { index, pipe } of settled.runPipes) setValue(`estimate.runs.${index}.pipe`, pipe, { shouldDirty: true });
@@ -52,7 +55,9 @@ export function PlantStep() {
           inputClassName="max-w-48"
         />
       </div>
-      <CoverageNotice />
+      <Suspense fallback={null}>
+        <CoverageNotice />
+      </Suspense>
 
       <div className="field-with-guess">
         <NumberField
@@ -74,7 +79,7 @@ export function PlantStep() {
           />
           <NumberField
             name="estimate.conditions.draughtyAirSpeedMPerS"
-            hint="Near doors and fans; used for runs you mark as draughty."
+            hint="Near doors and fans; used for runs you mark as drafty."
           />
         </div>
       </fieldset>

@@ -52,7 +52,7 @@ const STANDARD_NAMES: Record<string, string> = {
 
 /** "NPS 2 · 2.375 in OD", "DN50 · 60.3 mm OD", "3/4 in · 0.875 in OD". */
 function sizeLabel(standard: PipeStandard, entry: PipeSizeEntry, system: UnitSystem): string {
-  // Four figures: people match the catalogue's own dimension ("2.375 in").
+  // Four figures: people match the catalog's own dimension ("2.375 in").
   const od = formatQuantity(entry.outerDiameterM, 'diameter', system, 4);
   if (standard.id.startsWith('ASME')) return `NPS ${entry.size} · ${od} OD`;
   if (standard.id.startsWith('ASTM')) return `${entry.size} in · ${od} OD`;

@@ -53,8 +53,8 @@ export function RunsStep() {
     const photos = photosOfRun(run.id);
     setRemoved({ index, run, photos });
     dropRunPhotos(run.id);
-    const neighbour = getValues(`estimate.runs.${index + 1}`) ?? getValues(`estimate.runs.${index - 1}`);
-    focusRunId.current = neighbour ? neighbour.id : 'undo';
+    const neighbor = getValues(`estimate.runs.${index + 1}`) ?? getValues(`estimate.runs.${index - 1}`);
+    focusRunId.current = neighbor ? neighbor.id : 'undo';
     remove(index);
   }
 

@@ -1,6 +1,6 @@
 /**
  * US customary ⇄ SI. Only the display changes: values stay in SI at full precision, and the
- * plant's country (its market) keeps deciding catalogues, stock series and so every money figure.
+ * plant's country (its market) keeps deciding catalogs, stock series and so every money figure.
  */
 import { useFormContext } from 'react-hook-form';
 import type { DraftValues } from './draft';

@@ -4,7 +4,7 @@
  * they never touched counts as a guess, and one they typed as near enough. The engine widens
  * the range by these, so typical values never pass for known ones.
  */
-import { plantInputSchema, type PlantInput } from '../../engine';
+import { PLANT_INPUT_DEFAULTS, type PlantInput } from '../../engine';
 
 export type Confidence = 'measured' | 'estimated' | 'guessed';
 
@@ -28,8 +28,8 @@ const given = (value: unknown) => value !== undefined && value !== null && value
 
 /** What the form fills in: the engine's own defaults. */
 const PREFILLED = {
-  hours: plantInputSchema.shape.operatingHoursPerYear.parse(undefined),
-  conditions: plantInputSchema.shape.conditions.parse(undefined) as unknown as Record<string, unknown>,
+  hours: PLANT_INPUT_DEFAULTS.operatingHoursPerYear,
+  conditions: PLANT_INPUT_DEFAULTS.conditions as Record<string, unknown>,
 };
 
 /** A value the form filled in counts as touched once it was typed or differs from what was filled in. */

@@ -10,7 +10,8 @@ import {
   MARKETS,
   MARKET_IDS,
   marketForCountry,
-  plantInputSchema,
+  EXISTING_LAGGING_DEFAULTS,
+  PLANT_INPUT_DEFAULTS,
   serviceDefaults,
   type FuelId,
   type FuelPriceUnit,
@@ -21,7 +22,7 @@ import {
   type ServiceId,
   type AreaPresetId,
 } from '../../engine';
-import { createAssessmentSchema, type CreateAssessmentInput } from '../../schemas/assessment';
+import type { CreateAssessmentInput } from '../../schemas/assessment';
 import type { UnitSystem } from '../../lib/units-display';
 import { NOTHING_TYPED, withConfidences, type WasTyped } from './confidence';
 
@@ -67,15 +68,12 @@ export function stepOfPath(path: string): StepId {
   return path.startsWith('contact') ? 'contact' : path.startsWith('plant') ? 'plant' : 'runs';
 }
 
-/** The engine's run schema, reached through the plant schema rather than declared again. */
-const runSchema = plantInputSchema.shape.runs.element;
-
-/** The engine's defaults for the plant's conditions, economics and hours. */
+/** The engine's defaults for the plant's conditions, economics and hours (what its schema fills in). */
 export const PLANT_DEFAULTS = {
-  operatingHoursPerYear: plantInputSchema.shape.operatingHoursPerYear.parse(undefined),
-  conditions: plantInputSchema.shape.conditions.parse(undefined),
-  economics: plantInputSchema.shape.economics.parse(undefined),
-  currency: plantInputSchema.shape.energy.shape.currency.parse(undefined),
+  operatingHoursPerYear: PLANT_INPUT_DEFAULTS.operatingHoursPerYear,
+  conditions: { ...PLANT_INPUT_DEFAULTS.conditions, design: {}, confidence: 'guessed' as const },
+  economics: PLANT_INPUT_DEFAULTS.economics,
+  currency: PLANT_INPUT_DEFAULTS.currency,
 };
 
 function findMarket(id: MarketId) {
@@ -83,7 +81,7 @@ function findMarket(id: MarketId) {
 }
 
 /**
- * The market a draft's catalogues and stock series follow: the plant's country. Before a
+ * The market a draft's catalogs and stock series follow: the plant's country. Before a
  * country is chosen, the likeliest from the display units (a first guess the country then
  * settles); switching units later never changes it.
  */
@@ -96,11 +94,10 @@ export function draftMarket(countryCode: string | undefined, system: UnitSystem)
  * market's 1-inch or 25 mm stock thickness, and the engine's default covering for existing lagging.
  */
 export function existingInsulationDefaults(service: ServiceId, market: MarketId) {
-  const parsed = runSchema.shape.current.parse({ state: 'damaged', bareFraction: 0.5 });
   return {
     material: serviceDefaults(service).defaultInsulation,
     thicknessM: findMarket(market).stockSeries === 'inch' ? 0.0254 : 0.025,
-    jacket: parsed.state === 'damaged' ? parsed.jacket : serviceDefaults(service).defaultJacket,
+    jacket: EXISTING_LAGGING_DEFAULTS.jacket,
   };
 }
 
@@ -399,18 +396,3 @@ export function toAssessmentInput(values: DraftValues, wasTyped: WasTyped = NOTH
   return withoutUndefined({ ...values, estimate: toPlantInput(values.estimate, values.plant?.countryCode, wasTyped) });
 }
 
-/** Steps with at least one problem, read from the same schema the server parses with. */
-export function stepsWithProblems(values: unknown): Set<StepId> {
-  const parsed = createAssessmentSchema.safeParse(values);
-  const steps = new Set<StepId>();
-  if (parsed.success) return steps;
-  for (const issue of parsed.error.issues) steps.add(stepOfPath(issue.path.map(String).join('.')));
-  return steps;
-}
-
-/** The estimate input when the draft's estimate part is complete and valid, else null. */
-export function validPlantInput(estimate: unknown, countryCode?: string, wasTyped: WasTyped = NOTHING_TYPED): PlantInput | null {
-  if (typeof estimate !== 'object' || estimate === null || !Array.isArray((estimate as PlantInput).runs)) return null;
-  const input = toPlantInput(estimate as PlantInput, countryCode, wasTyped);
-  return plantInputSchema.safeParse(input).success ? input : null;
-}

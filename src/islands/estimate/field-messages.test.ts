@@ -9,7 +9,8 @@ import { FORM_FIELDS, formFieldAt, type FormFieldPattern } from '../../lib/form-
 import { fieldMessage } from '../../lib/field-messages';
 import { displayUnit, type UnitSystem } from '../../lib/units-display';
 import { freshValues, type DraftValues } from './draft';
-import { fieldContextOf, fieldErrorsOf } from './resolver';
+import { fieldContextOf } from './resolver';
+import { fieldErrorsOf } from './validation';
 
 const NB = '\u00a0';
 const MINUS = '\u2212';
@@ -39,8 +40,8 @@ const rows: readonly Row[] = [
   },
   {
     pattern: 'estimate.conditions.draughtyAirSpeedMPerS',
-    US: [30, 'Air speed in draughty spots must be at most 22.3 mph; 30 mph was given.'],
-    SI: [-1, 'Air speed in draughty spots must be at least 0 m/s; −1 m/s was given.'],
+    US: [30, 'Air speed in drafty spots must be at most 22.3 mph; 30 mph was given.'],
+    SI: [-1, 'Air speed in drafty spots must be at least 0 m/s; −1 m/s was given.'],
   },
   {
     pattern: 'estimate.conditions.outdoorAirTemperatureC',

@@ -7,7 +7,7 @@ export const PRICE_UNIT_NAMES: Record<FuelPriceUnit, string> = {
   MMBtu: 'MMBtu',
   GJ: 'GJ',
   kWh: 'kWh',
-  m3: 'cubic metre (m³)',
+  m3: 'cubic meter (m³)',
   gallon: 'US gallon',
   litre: 'litre',
   kg: 'kg',

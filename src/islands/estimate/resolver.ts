@@ -1,14 +1,11 @@
 /**
- * The form's checks: the very schema the server parses with, each refusal worded with the
- * field's own label and in the unit the person typed in (src/lib/field-messages.ts).
+ * The form's checks: the very schema the server parses with (./validation, loaded with the
+ * first check rather than with the page), each refusal worded with the field's own label and
+ * in the unit the person typed in (src/lib/field-messages.ts).
  */
 import { toNestErrors, validateFieldsNatively } from '@hookform/resolvers';
-import { get, type FieldError, type Resolver } from 'react-hook-form';
-import type { z } from 'zod';
-import type { RangeIssueParams } from '../../engine';
+import type { Resolver } from 'react-hook-form';
 import type { FieldContext } from '../../lib/form-fields';
-import { fieldMessage } from '../../lib/field-messages';
-import { createAssessmentSchema } from '../../schemas/assessment';
 import { fuelById, type DraftValues } from './draft';
 import { PRICE_UNIT_NAMES } from './price-units';
 
@@ -29,52 +26,12 @@ export function fieldContextFrom(system: unknown, currency: unknown, priceUnit: 
   };
 }
 
-type Issue = z.core.$ZodIssue;
-
-/** A union's refusal is told by the branch that came closest (fewest issues), as its own issues. */
-function flatten(issues: readonly Issue[], prefix: readonly PropertyKey[] = []): { path: PropertyKey[]; issue: Issue }[] {
-  return issues.flatMap((issue) => {
-    const path = [...prefix, ...issue.path];
-    if (issue.code === 'invalid_union' && issue.errors.length > 0) {
-      const closest = issue.errors.reduce((best, branch) => (branch.length < best.length ? branch : best));
-      if (closest.length > 0) return flatten(closest, path);
-    }
-    return [{ path, issue }];
-  });
-}
-
-/** One refusal in the field's words: range facts from its params, "required" and "not a number" from what was typed. */
-export function wordedIssue(issue: Issue, path: string, values: unknown, context: FieldContext): string {
-  const typed: unknown = get(values, path);
-  const params = issue.code === 'custom' ? (issue.params as RangeIssueParams | undefined) : undefined;
-  return fieldMessage(
-    {
-      path,
-      message: issue.message,
-      params: params && typeof params.limitSI === 'number' ? params : undefined,
-      typed,
-      notANumber: issue.code === 'invalid_type' && typed !== undefined && typeof typed !== 'number',
-    },
-    context,
-  );
-}
-
-/** The errors of the values as the form shows them: first refusal per field, in its own words. */
-export function fieldErrorsOf(values: unknown): Record<string, FieldError> {
-  const parsed = createAssessmentSchema.safeParse(values);
-  if (parsed.success) return {};
-  const context = fieldContextOf(values);
-  const errors: Record<string, FieldError> = {};
-  for (const { path, issue } of flatten(parsed.error.issues)) {
-    const key = path.map(String).join('.');
-    if (errors[key]) continue;
-    errors[key] = { type: issue.code, message: wordedIssue(issue, key, values, context) };
-  }
-  return errors;
-}
+/** The schema-reading checks: fetched once, when the first check is asked for. */
+export const loadValidation = () => import('./validation');
 
 /** react-hook-form's resolver over the assessment schema, messages in the field's words. */
 export const wordedResolver: Resolver<DraftValues> = async (values, _context, options) => {
+  const { fieldErrorsOf } = await loadValidation();
   const errors = fieldErrorsOf(values);
   if (Object.keys(errors).length === 0) {
     if (options.shouldUseNativeValidation) validateFieldsNatively({}, options);

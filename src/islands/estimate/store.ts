@@ -7,7 +7,7 @@ import { atom, map } from 'nanostores';
 import { persistentAtom, persistentMap } from '@nanostores/persistent';
 import { requestEstimate, submitAssessment, type ApiFailure, type SubmittedAssessment } from '../../lib/api-client';
 import type { PlantInput, PlantResult } from '../../engine';
-import { MAX_PHOTO_BYTES, MAX_PHOTOS, PHOTO_FIELD } from '../../schemas/assessment';
+import { MAX_PHOTO_BYTES, MAX_PHOTOS, PHOTO_FIELD } from '../../schemas/assessment-lists';
 import {
   freshValues,
   isStepId,

@@ -1,6 +1,6 @@
 /**
  * Switching between US and SI units only converts what is shown: the plant's country decides
- * the catalogues (pipe standard, stock thickness series, billing unit) and so every money
+ * the catalogs (pipe standard, stock thickness series, billing unit) and so every money
  * figure. Checked on a three-run plant of the invented Harrow Vale Creamery.
  */
 import { describe, expect, it } from 'vitest';
@@ -14,9 +14,9 @@ import {
   freshValues,
   newRun,
   settleMarket,
-  validPlantInput,
   type DraftValues,
 } from './draft';
+import { validPlantInput } from './validation';
 
 /** The same plant as the form holds it, read in either unit system. */
 function creamery(system: UnitSystem, countryCode = 'US'): DraftValues {
@@ -45,7 +45,7 @@ function estimateIn(system: UnitSystem) {
   return estimatePlant(input);
 }
 
-describe('switching units never changes a money figure or a catalogue', () => {
+describe('switching units never changes a money figure or a catalog', () => {
   it('the same plant in US and in SI units gives the same money, to the cent, run by run', () => {
     const us = estimateIn('US');
     const si = estimateIn('SI');
@@ -78,7 +78,7 @@ describe('switching units never changes a money figure or a catalogue', () => {
     expect(money('SI')).toEqual(money('US'));
   });
 
-  it('a new run starts on the market’s catalogue whatever the units: NPS 2 schedule 40 steel in the US, DN50 in Germany', () => {
+  it('a new run starts on the market’s catalog whatever the units: NPS 2 schedule 40 steel in the US, DN50 in Germany', () => {
     for (const system of ['US', 'SI'] as const) {
       expect(newRun(draftMarket('US', system), 1).pipe).toEqual({ standard: 'ASME-B36.10M', size: '2', schedule: '40', material: 'carbon-steel' });
       expect(newRun(draftMarket('DE', system), 1).pipe).toMatchObject({ standard: 'EN-10220' });
@@ -89,7 +89,7 @@ describe('switching units never changes a money figure or a catalogue', () => {
     }
   });
 
-  it('choosing the country settles the starting catalogue and billing unit, and keeps what the person chose', () => {
+  it('choosing the country settles the starting catalog and billing unit, and keeps what the person chose', () => {
     const values = freshValues('SI');
     const copper = { standard: 'ASTM-B88-L', size: '3/4', schedule: 'L', material: 'copper' };
     values.estimate.runs.push({ ...newRun('EU', 2), pipe: copper });

@@ -21,14 +21,14 @@ import type { ChartSpec, Tone } from './series';
 
 Chart.register(BarController, BarElement, CategoryScale, LinearScale, LineController, LineElement, PointElement, Tooltip, Legend);
 
-/** The stylesheet's token for a tone, so charts wear the same colours as the page. */
-function colour(tone: Tone): string {
+/** The stylesheet's token for a tone, so charts wear the same colors as the page. */
+function color(tone: Tone): string {
   const styles = getComputedStyle(document.documentElement);
   return styles.getPropertyValue(`--color-${tone}`).trim() || styles.color;
 }
 
 function options(spec: ChartSpec): ChartOptions<'bar' | 'line'> {
-  const text = colour('graphite');
+  const text = color('graphite');
   const grid = getComputedStyle(document.documentElement).getPropertyValue('--color-line').trim();
   const font = { family: getComputedStyle(document.body).fontFamily, size: 13 };
   return {
@@ -65,7 +65,7 @@ export default function ChartCanvas({ spec }: { spec: ChartSpec }) {
       datasets: spec.series.map((s) => ({
         label: s.label,
         data: [...s.values],
-        backgroundColor: s.tones ? s.tones.map(colour) : colour(s.tone),
+        backgroundColor: s.tones ? s.tones.map(color) : color(s.tone),
         borderWidth: 0,
       })),
     };
@@ -76,8 +76,8 @@ export default function ChartCanvas({ spec }: { spec: ChartSpec }) {
     datasets: spec.series.map((s) => ({
       label: s.label,
       data: [...s.values],
-      borderColor: colour(s.tone),
-      backgroundColor: colour(s.tone),
+      borderColor: color(s.tone),
+      backgroundColor: color(s.tone),
       borderDash: s.dashed ? [6, 5] : [],
       borderWidth: s.pointsOnly ? 0 : 2.5,
       showLine: !s.pointsOnly,

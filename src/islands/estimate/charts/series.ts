@@ -6,7 +6,7 @@ import type { PlantResult, RunEstimate } from '../../../engine';
 import type { DisplayFormat } from '../../../lib/presentation';
 import { displayUnit } from '../../../lib/units-display';
 
-/** Colours are our tokens, named here and resolved from the stylesheet where the chart is drawn. */
+/** Colors are our tokens, named here and resolved from the stylesheet where the chart is drawn. */
 export type Tone = 'ember' | 'frost' | 'mineral' | 'graphite' | 'graphite-soft';
 
 export interface ChartSeries {
