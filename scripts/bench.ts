@@ -2,7 +2,7 @@
  * Engine benchmark (`npm run bench`): bundles the engine the way the server gets it (esbuild,
  * one ESM file) and times that bundle beside a baseline bundled the same way in the same run —
  * the engine as it stood at BENCH_BASELINE (a git ref, default e05611b: the engine before the
- * issue-9 judgement work), taken with `git archive` into a temp folder. Prints per figure the
+ * issue-9 judgment work), taken with `git archive` into a temp folder. Prints per figure the
  * new value, the baseline and their ratio, plus allocation and GC time per 200-run plant.
  * No test depends on timing. The plant is an invented one (a creamery in the made-up town of
  * Wrenfold), in the request shape both engines accept.

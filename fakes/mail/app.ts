@@ -1,6 +1,6 @@
 /**
  * The mail fake as an HTTP handler: Resend's API for the app, an inbox for people, and `/_fake/*`
- * for tests. Kept apart from server.ts so the listening process and the behaviour stay separate.
+ * for tests. Kept apart from server.ts so the listening process and the behavior stay separate.
  */
 import { createHash, randomUUID } from 'node:crypto';
 import type { IncomingMessage, ServerResponse } from 'node:http';

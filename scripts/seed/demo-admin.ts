@@ -42,7 +42,7 @@ const unrouted = plant('demo-admin-kettle-butte-creamery', {
   type: 'creamery',
   postal: '59715',
   plantName: 'Kettle Butte Creamery, Sorrel Flat',
-  runLabel: 'Steam to the pasteuriser',
+  runLabel: 'Steam to the pasteurizer',
 });
 
 const stale = plant('demo-admin-larchmere-smokehouse', {
@@ -63,7 +63,7 @@ const atCap = [
     type: 'juice-plant',
     postal: '05401',
     plantName: 'Pellham Cider Works, Orchard Row',
-    runLabel: 'Steam to the pasteuriser tunnel',
+    runLabel: 'Steam to the pasteurizer tunnel',
   }),
   plant('demo-admin-greyfield-tofu', {
     company: 'Greyfield Tofu Co.',

@@ -86,7 +86,7 @@ export const deskDemoLeads: DeskDemo[] = [
         operatingHoursPerYear: 3000,
         energy: usEnergy(1.2),
         runs: [
-          { id: 'pasteur', label: 'Hot water to the pasteuriser', service: 'hot-water', pipe: copper('1-1/2'), lengthM: 22, fluidTemperatureC: 85 },
+          { id: 'pasteur', label: 'Hot water to the pasteurizer', service: 'hot-water', pipe: copper('1-1/2'), lengthM: 22, fluidTemperatureC: 85 },
           { id: 'chill', label: 'Chilled water to juice tanks', service: 'chilled-water', pipe: copper('2'), lengthM: 35 },
         ],
       },
@@ -136,7 +136,7 @@ export const deskDemoLeads: DeskDemo[] = [
     steps: [
       { claim: marisol },
       { move: 'in_touch', by: marisol },
-      { close: 'too-small', by: marisol, note: 'Ten metres of 3/4" copper; a weekend job for their own fitter.' },
+      { close: 'too-small', by: marisol, note: 'Ten meters of 3/4" copper; a weekend job for their own fitter.' },
     ],
   },
   {
@@ -148,7 +148,7 @@ export const deskDemoLeads: DeskDemo[] = [
         operatingHoursPerYear: 6000,
         energy: usEnergy(0.98),
         runs: [
-          { id: 'steam', label: 'Steam to HTST pasteuriser', service: 'steam', pipe: steel('1-1/2'), lengthM: 26, steamGaugePressureKPa: 550, valves: 3 },
+          { id: 'steam', label: 'Steam to HTST pasteurizer', service: 'steam', pipe: steel('1-1/2'), lengthM: 26, steamGaugePressureKPa: 550, valves: 3 },
           { id: 'cip', label: 'CIP return loop', service: 'cip-return', pipe: stainless('2'), lengthM: 40, flangePairs: 5 },
         ],
       },
@@ -285,7 +285,7 @@ export const deskDemoLeads: DeskDemo[] = [
         energy: { fuel: 'natural-gas', price: 0.07, priceUnit: 'kWh', currency: 'GBP', emissionFactorSource: 'uk-desnz-2023' },
         runs: [
           { id: 'steam', label: 'Steam to curd vats', service: 'steam', pipe: { standard: 'EN-10220', size: 'DN50' }, lengthM: 24, steamGaugePressureKPa: 450, valves: 4 },
-          { id: 'hw', label: 'Hot water to mould washer', service: 'hot-water', pipe: { standard: 'EN-10220', size: 'DN25' }, lengthM: 16 },
+          { id: 'hw', label: 'Hot water to mold washer', service: 'hot-water', pipe: { standard: 'EN-10220', size: 'DN25' }, lengthM: 16 },
         ],
       },
     ),

@@ -45,7 +45,7 @@ export const demoWalks: DemoWalk[] = [
   {
     key: 'demo-fenwick-cider',
     by: 'anders@kvale-insulation.example',
-    reason: 'Looked over the press hall before the season: the pasteuriser line is shorter than drawn and has two valves; the hall runs cold and damp.',
+    reason: 'Looked over the press hall before the season: the pasteurizer line is shorter than drawn and has two valves; the hall runs cold and damp.',
     walk: (runs) => ({
       runs: edit(
         edit(runs, 'pasteur', (run) => ({ ...run, valves: 2, measurements: { lengthM: 19.8 }, areaId: 'walk-room-pasteur' })),

@@ -47,7 +47,7 @@ export const regions = pgTable('regions', {
 });
 
 /**
- * Postal-code prefixes, stored normalised (upper case, no spaces or dashes) so the longest
+ * Postal-code prefixes, stored normalized (upper case, no spaces or dashes) so the longest
  * matching prefix can be found with one indexed query.
  */
 export const regionPostalPrefixes = pgTable(
@@ -254,7 +254,7 @@ export const leadRevisions = pgTable(
 );
 
 /**
- * A consultant's own installed prices: the engine's price table shape (per metre by pipe OD and
+ * A consultant's own installed prices: the engine's price table shape (per meter by pipe OD and
  * insulation thickness, a fitting cover by pipe OD) in one currency. The report composer hands it
  * to the engine in place of the illustrative demo table for plants priced in that currency.
  */

@@ -11,7 +11,7 @@ export interface AnnualFigures {
   readonly annualHeatGJ: number;
   /** Boiler fuel energy (higher heating value), GJ/yr. */
   readonly annualFuelGJ: number;
-  /** Boiler fuel in its physical unit (m³, litre or kWh), per year. */
+  /** Boiler fuel in its physical unit (m³, liter or kWh), per year. */
   readonly annualFuelQuantity: number;
   /** Chiller electricity for heat gained by cold lines, kWh/yr. */
   readonly annualChillerElectricityKWh: number;

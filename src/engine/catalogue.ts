@@ -5,7 +5,7 @@ import { SURFACES } from './data/surfaces';
 import { FUELS, type Fuel } from './data/fuels';
 import { EngineError } from './errors';
 
-/** Outside diameter and wall of a catalogue pipe. */
+/** Outside diameter and wall of a catalog pipe. */
 export interface PipeDimensions {
   readonly standard: string;
   readonly size: string;
@@ -45,9 +45,9 @@ export function findPipeSize(standard: PipeStandard, size: string): PipeSizeEntr
   return standard.sizes.find((s) => Math.abs(s.nominalInch - inches) < 1e-9);
 }
 
-/** Normalises "Sch 40", "sch40s", "2.90" to the catalogue's schedule keys. */
+/** Normalizes "Sch 40", "sch40s", "2.90" to the catalog's schedule keys. */
 function normaliseSchedule(entry: PipeSizeEntry, schedule: string): string | undefined {
-  // The catalogue's own spelling (what the form sends) needs no clean-up: every key is already in the form below.
+  // The catalog's own spelling (what the form sends) needs no clean-up: every key is already in the form below.
   if (Object.hasOwn(entry.wallsM, schedule)) return schedule;
   const t = schedule
     .trim()
@@ -64,7 +64,7 @@ function normaliseSchedule(entry: PipeSizeEntry, schedule: string): string | und
 }
 
 /**
- * Dimensions of a catalogue pipe.
+ * Dimensions of a catalog pipe.
  *
  * @throws EngineError UNKNOWN_PIPE_SIZE or UNKNOWN_SCHEDULE with a sentence naming what exists
  */
@@ -102,22 +102,22 @@ export function lookupPipe(standardId: string, size: string, schedule?: string):
   };
 }
 
-/** Catalogue insulation material by id, or undefined. */
+/** Catalog insulation material by id, or undefined. */
 export function findInsulationMaterial(id: string): InsulationMaterial | undefined {
   return (INSULATION_MATERIALS as readonly InsulationMaterial[]).find((m) => m.id === id);
 }
 
-/** Catalogue pipe material by id, or undefined. */
+/** Catalog pipe material by id, or undefined. */
 export function findPipeMaterial(id: string): (typeof PIPE_MATERIALS)[number] | undefined {
   return PIPE_MATERIALS.find((m) => m.id === id);
 }
 
-/** Catalogue surface (bare or jacket) by id, or undefined. */
+/** Catalog surface (bare or jacket) by id, or undefined. */
 export function findSurface(id: string): (typeof SURFACES)[number] | undefined {
   return SURFACES.find((s) => s.id === id);
 }
 
-/** Catalogue fuel by id, or undefined. */
+/** Catalog fuel by id, or undefined. */
 export function findFuel(id: string): Fuel | undefined {
   return (FUELS as readonly Fuel[]).find((f) => f.id === id);
 }

@@ -15,7 +15,7 @@ export function fuelEnergyJ(heatJ: number, boilerEfficiency: number): number {
   return heatJ / boilerEfficiency;
 }
 
-/** Fuel quantity in the fuel's physical unit (m³ at 60 °F and 1 atm, litre, kWh) for a fuel energy. */
+/** Fuel quantity in the fuel's physical unit (m³ at 60 °F and 1 atm, liter, kWh) for a fuel energy. */
 export function fuelQuantity(fuel: Fuel, fuelEnergyJoules: number): number {
   return fuelEnergyJoules / fuel.heatingValueJPerQuantityUnit;
 }
@@ -131,7 +131,7 @@ function rowAt(table: InstalledCostTable, r: number, ti: number, tw: number): nu
 }
 
 /**
- * Installed cost per metre from a price table, bilinear in pipe OD and thickness.
+ * Installed cost per meter from a price table, bilinear in pipe OD and thickness.
  * Beyond the table's thicknesses it extends linearly (thicker costs more); beyond its
  * diameters it holds the end rows' trend linearly too, never below the first row.
  */

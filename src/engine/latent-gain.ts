@@ -6,7 +6,7 @@ import { saturationVapourPressureKPa } from './psychrometrics';
 const WATER_M_OVER_R = 0.01801528 / 8.314462618;
 
 /**
- * Diffusion coefficient of water vapour in air, m²/s: 0.26 × 10⁻⁴ at 298 K scaled as T^(3/2)
+ * Diffusion coefficient of water vapor in air, m²/s: 0.26 × 10⁻⁴ at 298 K scaled as T^(3/2)
  * (Incropera et al., Fundamentals of Heat and Mass Transfer 6th ed., Table A.8 and eq. 14.7
  * — from memory).
  */
@@ -15,7 +15,7 @@ export function vapourDiffusivityM2PerS(temperatureK: number): number {
 }
 
 /**
- * Latent heat given up by vapour condensing on a surface at `surfaceC`, J/kg: condensation
+ * Latent heat given up by vapor condensing on a surface at `surfaceC`, J/kg: condensation
  * h_fg ≈ 2 501 kJ/kg − 2.37 kJ/(kg·K)·T above 0 °C, plus the heat of fusion 334 kJ/kg where it
  * frosts (below 0 °C) — the usual psychrometric approximations, from memory.
  */
@@ -26,12 +26,12 @@ export function latentHeatOfDepositionJPerKg(surfaceC: number): number {
 /**
  * Water condensing on a cold surface, kg/(m²·s), by the Chilton–Colburn heat and mass
  * transfer analogy (Incropera eq. 6.60): h_m = h_c / (ρ c_p Le^(2/3)) = h_c α / (k Le^(2/3)),
- * flux = h_m (ρ_v,air − ρ_v,sat(T_s)). Positive when vapour condenses (surface below the
+ * flux = h_m (ρ_v,air − ρ_v,sat(T_s)). Positive when vapor condenses (surface below the
  * dew point), negative (evaporation, which a dry surface cannot do) otherwise.
  *
  * @param convectionWPerM2K the surface's convection coefficient
  * @param air air properties at the film temperature (ν, k, Pr)
- * @param vapourPressureKPa the air's vapour partial pressure
+ * @param vapourPressureKPa the air's vapor partial pressure
  */
 export function condensationFluxKgPerM2S(
   convectionWPerM2K: number,

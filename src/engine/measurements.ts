@@ -7,13 +7,13 @@ import { ZERO_CELSIUS_K } from './physical-constants';
 
 /** What a run's site readings tell the estimate. */
 export interface MeasurementReading {
-  /** Loss per metre from the surface balance at the measured surface and air, W/m. */
+  /** Loss per meter from the surface balance at the measured surface and air, W/m. */
   readonly measuredHeatLossWPerM: number | null;
   /** The surface temperature, corrected for the infrared thermometer's emittance setting, °C. */
   readonly surfaceTemperatureC: number | null;
   /** The line temperature a bare-pipe reading implies, °C. */
   readonly lineTemperatureC: number | null;
-  /** Measured ÷ modelled loss of insulation in place, where the surface is far enough from the air. */
+  /** Measured ÷ modeled loss of insulation in place, where the surface is far enough from the air. */
   readonly conditionFactor: number | null;
   /** The insulated surface read too close to the air to judge its condition. */
   readonly closeToAir: boolean;
@@ -41,7 +41,7 @@ export function infraredCorrectedC(readingC: number, emittanceSetting: number, e
  * Interprets a run's measurements: on bare pipe, q′ = πD[h_c(T_s, T_a, D, V)(T_s − T_a) +
  * εσ(T_s⁴ − T_sur⁴)] from the measured surface and air, and the line temperature back through
  * the wall and inside film; on insulated pipe, the ratio of that loss to the model's at the
- * same air (method.md, "Judgement around the physics").
+ * same air (method.md, "Judgment around the physics").
  *
  * @param existingLayers the run's insulation today, or null for bare pipe
  */

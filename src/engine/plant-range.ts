@@ -120,7 +120,7 @@ interface SampleColumns {
 
 /**
  * The samples themselves, written into `out`. A function of its own that ends with its loop
- * (code after a hot loop that has never run would throw the loop's optimised code away on
+ * (code after a hot loop that has never run would throw the loop's optimized code away on
  * every estimate) and reads no parsed input (the shapes of objects the parser made die with
  * them, and a full collection would throw away code that knew them).
  */
@@ -146,8 +146,8 @@ function drawSamples(
   // One record of numbers per run in a single typed array: the inner loop runs samples × runs
   // times, and one array (one bounds check, one base pointer) serves all of a run's terms.
   const runCount = terms.length;
-  // Plain loops, no per-call closures: optimised code that held a closure made here would be
-  // thrown away by the next full collection, and the loop below run unoptimised again.
+  // Plain loops, no per-call closures: optimized code that held a closure made here would be
+  // thrown away by the next full collection, and the loop below run unoptimized again.
   const runs = new Float64Array(runCount * RUN_RECORD);
   for (let r = 0; r < runCount; r++) {
     const t = terms[r] as SampleTerms;

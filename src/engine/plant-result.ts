@@ -31,7 +31,7 @@ export interface ThicknessOption {
   readonly thicknessM: number;
   /** The thickness on the pipe (ASTM C585 actual for the inch series), m. */
   readonly actualThicknessM: number;
-  /** Signed per metre: positive out of the line, negative into it. */
+  /** Signed per meter: positive out of the line, negative into it. */
   readonly heatLossWPerM: number;
   /** At the year's average air. */
   readonly surfaceTemperatureC: number;
@@ -62,7 +62,7 @@ export interface RunOption {
   readonly material?: string | null;
   /** Full detail only. */
   readonly jacket?: string | null;
-  /** Full detail only: metres of pipe the work covers. */
+  /** Full detail only: meters of pipe the work covers. */
   readonly lengthInsulatedM?: number;
   /** Full detail only. */
   readonly fittingCovers?: number;
@@ -93,13 +93,13 @@ export interface InputNotice {
 
 /** What the engine made of a run's site measurements. */
 export interface MeasurementUse {
-  /** Loss per metre from the measured surface and air, W/m (positive out of the line). */
+  /** Loss per meter from the measured surface and air, W/m (positive out of the line). */
   readonly measuredHeatLossWPerM: number | null;
   /** The surface temperature after correcting an infrared reading for emittance, °C. */
   readonly surfaceTemperatureC: number | null;
   /** Line temperature implied by a bare-pipe reading, °C (used for the estimate). */
   readonly lineTemperatureC: number | null;
-  /** Measured ÷ modelled loss of existing insulation (used where the surface is > 10 K from the air). */
+  /** Measured ÷ modeled loss of existing insulation (used where the surface is > 10 K from the air). */
   readonly conditionFactor: number | null;
 }
 
@@ -149,7 +149,7 @@ export interface RunEstimate {
     readonly surfaceTemperatureC: number;
     /** The same at design air (hot still hour or wettest hour), °C. */
     readonly designSurfaceTemperatureC: number;
-    /** Latent heat of vapour condensing on it, W (cold lines below the dew point). */
+    /** Latent heat of vapor condensing on it, W (cold lines below the dew point). */
     readonly latentGainW: number;
     /** Heat flowing the way the service does not pay for (a cold line losing heat), W; reported, not billed. */
     readonly wrongWayHeatW: number;

@@ -1,6 +1,6 @@
 import { EngineError } from './errors';
 
-// Magnus-form saturation vapour pressure, Alduchov & Eskridge (1996), J. Appl.
+// Magnus-form saturation vapor pressure, Alduchov & Eskridge (1996), J. Appl.
 // Meteor. 35, 601–609: over water (AERK) a = 17.625, b = 243.04 °C; over ice
 // (AERKi) a = 22.587, b = 273.86 °C. Like the ASHRAE formulation, saturation is
 // taken over ice below 0 °C, so a dew point below 0 °C is a frost point.
@@ -17,19 +17,19 @@ function logSaturationRatio(temperatureC: number): number {
 }
 
 /**
- * Saturation vapour pressure over water (over ice below 0 °C), kPa, by the same Magnus forms:
+ * Saturation vapor pressure over water (over ice below 0 °C), kPa, by the same Magnus forms:
  * e_s = 0.61094 exp(17.625 T / (243.04 + T)) over water, 0.61115 exp(22.587 T / (273.86 + T)) over ice.
  */
 export function saturationVapourPressureKPa(temperatureC: number): number {
   return 0.61094 * Math.exp(logSaturationRatio(temperatureC));
 }
 
-/** The vapour partial pressure of air at a temperature and relative humidity, kPa. */
+/** The vapor partial pressure of air at a temperature and relative humidity, kPa. */
 export function vapourPressureKPa(temperatureC: number, relativeHumidityPercent: number): number {
   return (relativeHumidityPercent / 100) * saturationVapourPressureKPa(temperatureC);
 }
 
-/** Dew point (frost point below 0 °C) of air holding vapour at this partial pressure, °C (Magnus forms above). */
+/** Dew point (frost point below 0 °C) of air holding vapor at this partial pressure, °C (Magnus forms above). */
 export function dewPointFromVapourKPa(vapourKPa: number): number {
   const gamma = Math.log(vapourKPa / 0.61094);
   const overWater = (WATER_B_C * gamma) / (WATER_A - gamma);

@@ -1,7 +1,7 @@
 import { STEFAN_BOLTZMANN_W_PER_M2K4 } from './physical-constants';
 
 /**
- * Linearised radiation coefficient of a small grey surface in large surroundings,
+ * Linearized radiation coefficient of a small gray surface in large surroundings,
  * h_r = ε σ (T_s² + T_sur²)(T_s + T_sur), temperatures in kelvin (Incropera eq. 1.9).
  */
 export function radiationCoefficientWPerM2K(

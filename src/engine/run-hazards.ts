@@ -43,7 +43,7 @@ export function hazardsToday(f: HazardFacts): RunWarning[] {
     hazards.push({ code: 'BARE_FITTINGS_ABOVE_TOUCH_LIMIT', message: `${n} bare fitting${n === 1 ? '' : 's'} on this line run at about ${Math.round(f.bareDesignC)} °C, above the ${f.touchLimitC} °C touch limit: removable covers would stop burns.` });
   }
   if (n > 0 && f.sweatNeed && f.bareDesignC < f.wetDewPointC) {
-    hazards.push({ code: 'BARE_FITTINGS_BELOW_DEW_POINT', message: `${n} bare fitting${n === 1 ? '' : 's'} on this line sit at about ${formatNumber(Math.round(f.bareDesignC * 10) / 10)} °C, below the ${dew} °C dew point: they will drip onto whatever is below; removable covers with a vapour retarder stop it.` });
+    hazards.push({ code: 'BARE_FITTINGS_BELOW_DEW_POINT', message: `${n} bare fitting${n === 1 ? '' : 's'} on this line sit at about ${formatNumber(Math.round(f.bareDesignC * 10) / 10)} °C, below the ${dew} °C dew point: they will drip onto whatever is below; removable covers with a vapor retarder stop it.` });
   }
   return hazards;
 }

@@ -121,7 +121,7 @@ export const insulationLayerSchema = z
     if ((layer.conductivityWPerMK === undefined) === (layer.material === undefined)) {
       ctx.addIssue({
         code: 'custom',
-        message: 'Give each insulation layer either a catalogue material or a conductivity in W/(m·K), not both.',
+        message: 'Give each insulation layer either a catalog material or a conductivity in W/(m·K), not both.',
       });
     } else if (layer.material !== undefined && !findInsulationMaterial(layer.material)) {
       ctx.addIssue({
@@ -155,8 +155,8 @@ export const fluidFlowSchema = z.object({
 });
 
 /**
- * Input of one straight run, per metre, steady state. Explicit geometry and
- * properties reproduce a published case exactly; catalogue look-ups are the
+ * Input of one straight run, per meter, steady state. Explicit geometry and
+ * properties reproduce a published case exactly; catalog look-ups are the
  * alternative. Parse with `.safeParse` to get every issue with its path.
  */
 export const runInputSchema = z

@@ -31,7 +31,7 @@ export function measurementNotices(run: ParsedPlantRun, reading: MeasurementRead
     notices.push({
       code: 'MEASURED_CLOSE_TO_AIR',
       path: `runs.${run.id}.measurements.surfaceTemperatureC`,
-      message: `The insulated surface reads within ${CONDITION_FACTOR_MIN_DIFFERENCE_K} K of the air, too close to judge the insulation's condition from; the catalogue figure is kept.`,
+      message: `The insulated surface reads within ${CONDITION_FACTOR_MIN_DIFFERENCE_K} K of the air, too close to judge the insulation's condition from; the catalog figure is kept.`,
     });
   }
 }

@@ -87,7 +87,7 @@ export function worseSurface(basis: OptionBasis, a: number, b: number): number {
   return basis.cold ? Math.min(a, b) : Math.max(a, b);
 }
 
-/** Installed price per metre of a material at a stock thickness, from the plant's table. */
+/** Installed price per meter of a material at a stock thickness, from the plant's table. */
 export function pricePerMetre(basis: OptionBasis, material: InsulationMaterial, thicknessM: number): number {
   return installedCostPerMetre(basis.table, basis.pipeOuterDiameterM, thicknessM) * material.installedCostFactor;
 }
@@ -185,7 +185,7 @@ export function withUncoveredFittings(basis: OptionBasis, designC: number): numb
 /**
  * The one option of a series: the least life-cycle cost of the thicknesses that meet the
  * safety checks, else the thickest. Each thickness is costed in place; only the one kept
- * becomes an option. The price per metre is the material's at the thickness plus
+ * becomes an option. The price per meter is the material's at the thickness plus
  * `extraPerMetre` (repairing a damaged stretch first).
  */
 export function addBestOfSeries(

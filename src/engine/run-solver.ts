@@ -33,13 +33,13 @@ export interface ResolvedRun {
   /** Convection coefficient fixed by the caller (radiation still computed), or null. */
   readonly fixedConvectionCoefficientWPerM2K: number | null;
   /**
-   * Water vapour in the air, for latent gain where the surface falls below the dew point:
-   * the air's vapour partial pressure, kPa, or null to leave latent heat out.
+   * Water vapor in the air, for latent gain where the surface falls below the dew point:
+   * the air's vapor partial pressure, kPa, or null to leave latent heat out.
    */
   readonly airVapourPressureKPa?: number | null;
 }
 
-/** The solved state of one run, per metre. */
+/** The solved state of one run, per meter. */
 export interface CoreSolution {
   readonly heatLossWPerM: number;
   readonly surfaceTemperatureC: number;
@@ -57,7 +57,7 @@ export interface CoreSolution {
   readonly totalResistanceMKPerW: number;
   readonly surfaceDiameterM: number;
   readonly rayleighNumber: number;
-  /** Latent heat brought in by vapour condensing (or frosting) on the surface, W/m; 0 when dry. */
+  /** Latent heat brought in by vapor condensing (or frosting) on the surface, W/m; 0 when dry. */
   readonly latentGainWPerM: number;
   readonly iterations: number;
 }
@@ -104,7 +104,7 @@ interface SolverState {
   hasFixedConvection: boolean;
   fixedConvection: number;
   vapourKPa: number;
-  /** Dew point of the air, °C: no vapour condenses on a surface above it. */
+  /** Dew point of the air, °C: no vapor condenses on a surface above it. */
   dewC: number;
   slenderFactor: number;
   air: AirProperties;
@@ -222,7 +222,7 @@ function heatAt(surfaceC: number): number {
   const sensible = st.perimeter * (st.lastConvection * (surfaceC - st.ambientC) + st.lastRadiation * (surfaceC - st.surroundingsC));
   st.lastLatent = 0;
   if (st.vapourKPa > 0 && surfaceC < st.dewC) {
-    // Vapour condensing on a surface below the dew point gives up its latent heat to the line.
+    // Vapor condensing on a surface below the dew point gives up its latent heat to the line.
     const flux = condensationFluxKgPerM2S(st.lastConvection, st.air, surfaceC, st.ambientC, st.vapourKPa);
     if (flux > 0) st.lastLatent = st.perimeter * flux * latentHeatOfDepositionJPerKg(surfaceC);
   }
@@ -512,7 +512,7 @@ export function solveLean(run: ResolvedRun, guessSurfaceC?: number): LeanSolutio
 }
 
 /**
- * Solves the surface heat balance of one run (method.md): per metre, the heat
+ * Solves the surface heat balance of one run (method.md): per meter, the heat
  * through the inside film, the wall and each layer (k̄ over the layer's own span)
  * equals the heat leaving the surface by convection and radiation. The unknown is
  * the surface temperature; marching inward from a trial surface temperature with
@@ -560,7 +560,7 @@ export function solveResolvedRun(run: ResolvedRun, guessSurfaceC?: number): Core
   const layerResistances: number[] = new Array<number>(nLayers);
   // The surface resistance is the air-side temperature difference over the heat flow, so the
   // resistances add up to fluid − air even when the surroundings radiate from another
-  // temperature or vapour condenses on the surface.
+  // temperature or vapor condenses on the surface.
   const surfaceResistance =
     Math.abs(q) > 1e-12 && Math.abs(surfaceC - st.ambientC) > 1e-9 ? (surfaceC - st.ambientC) / q : 1 / ((hc + hr) * st.perimeter);
   let total = st.innerResistance + surfaceResistance;

@@ -29,7 +29,7 @@ export interface RunWarning {
   readonly layer?: number;
 }
 
-/** Resistances in series per metre of run, m·K/W. */
+/** Resistances in series per meter of run, m·K/W. */
 export interface RunResistances {
   readonly insideFilmMKPerW: number;
   readonly pipeWallMKPerW: number;
@@ -38,7 +38,7 @@ export interface RunResistances {
   readonly totalMKPerW: number;
 }
 
-/** The solved run, per metre of length. Heat loss is negative for heat gain (cold lines). */
+/** The solved run, per meter of length. Heat loss is negative for heat gain (cold lines). */
 export interface RunResult {
   readonly heatLossWPerM: number;
   readonly surfaceTemperatureC: number;
@@ -51,7 +51,7 @@ export interface RunResult {
   readonly radiationCoefficientWPerM2K: number;
   readonly surfaceCoefficientWPerM2K: number;
   readonly insideFilmWPerM2K: number;
-  /** Latent heat of vapour condensing (or frosting) on a surface below the dew point, W/m. */
+  /** Latent heat of vapor condensing (or frosting) on a surface below the dew point, W/m. */
   readonly latentGainWPerM: number;
   readonly resistances: RunResistances;
   /** Overall coefficient on the inner pipe area, W/(m²·K). */
@@ -83,7 +83,7 @@ export interface PreparedRun {
   readonly touchLimitC: number;
 }
 
-/** Resolves catalogue look-ups and defaults of a parsed run into numbers. */
+/** Resolves catalog look-ups and defaults of a parsed run into numbers. */
 export function prepareRun(run: ParsedRunInput): PreparedRun {
   let outerDiameterM: number;
   let wallThicknessM: number;
@@ -197,7 +197,7 @@ function warningsFor(prepared: PreparedRun, solution: CoreSolution): RunWarning[
   if (prepared.dewPointC !== null && surfaceC < prepared.dewPointC) {
     warnings.push({
       code: 'SURFACE_BELOW_DEW_POINT',
-      message: `The surface runs at about ${formatNumber(Math.round(surfaceC * 10) / 10)} °C, below the air's dew point of ${formatNumber(Math.round(prepared.dewPointC * 10) / 10)} °C: it will sweat (or frost) unless insulated with a vapour retarder.`,
+      message: `The surface runs at about ${formatNumber(Math.round(surfaceC * 10) / 10)} °C, below the air's dew point of ${formatNumber(Math.round(prepared.dewPointC * 10) / 10)} °C: it will sweat (or frost) unless insulated with a vapor retarder.`,
     });
   }
   const layers = prepared.resolved.layers;
@@ -271,7 +271,7 @@ export function solvePreparedRun(prepared: PreparedRun, guessSurfaceC?: number):
 }
 
 /**
- * Heat loss (or gain) of one straight run, per metre, steady state: inside film,
+ * Heat loss (or gain) of one straight run, per meter, steady state: inside film,
  * pipe wall, each insulation layer with k̄ over its own temperature span (ASTM
  * C680 approach), and convection plus radiation at the surface.
  *

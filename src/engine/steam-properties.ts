@@ -111,7 +111,7 @@ function region1EnthalpyKJPerKg(temperatureK: number, pressureMPa: number): numb
   return IF97_R_KJ_PER_KGK * temperatureK * tau * gammaTau;
 }
 
-/** Specific enthalpy in region 2 (vapour), kJ/kg — R7-97(2012) eq. 15–17, Tables 10–11. */
+/** Specific enthalpy in region 2 (vapor), kJ/kg — R7-97(2012) eq. 15–17, Tables 10–11. */
 function region2EnthalpyKJPerKg(temperatureK: number, pressureMPa: number): number {
   const tau = 540 / temperatureK;
   let idealTau = 0;
@@ -137,9 +137,9 @@ export interface SteamState {
   readonly saturationTemperatureC: number;
   /** Enthalpy of saturated liquid h′, J/kg. */
   readonly liquidEnthalpyJPerKg: number;
-  /** Enthalpy of saturated vapour h″, J/kg. */
+  /** Enthalpy of saturated vapor h″, J/kg. */
   readonly vapourEnthalpyJPerKg: number;
-  /** Latent heat of vaporisation h″ − h′, J/kg. */
+  /** Latent heat of vaporization h″ − h′, J/kg. */
   readonly latentHeatJPerKg: number;
 }
 
@@ -161,13 +161,13 @@ export function saturatedSteam(absolutePressureKPa: number): SteamState {
   const temperatureK = saturationC + ZERO_CELSIUS_K;
   const pressureMPa = absolutePressureKPa / 1000;
   const liquid = region1EnthalpyKJPerKg(temperatureK, pressureMPa) * 1000;
-  const vapour = region2EnthalpyKJPerKg(temperatureK, pressureMPa) * 1000;
+  const vapor = region2EnthalpyKJPerKg(temperatureK, pressureMPa) * 1000;
   return {
     absolutePressureKPa,
     saturationTemperatureC: saturationC,
     liquidEnthalpyJPerKg: liquid,
-    vapourEnthalpyJPerKg: vapour,
-    latentHeatJPerKg: vapour - liquid,
+    vapourEnthalpyJPerKg: vapor,
+    latentHeatJPerKg: vapor - liquid,
   };
 }
 

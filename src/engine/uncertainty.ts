@@ -16,7 +16,7 @@ export const CONFIDENCE_SPREADS: Readonly<Record<Confidence, number>> = {
  * and fast, so a range is reproducible from its seed. One stream for the engine, reseeded by
  * each range ({@link seedDraws}; the engine is synchronous, so one range draws at a time). It
  * lives in a module-level typed array rather than a closure or an object of its own: a uint32
- * in a closure variable is boxed on every draw, and the sampling loop's optimised code would be
+ * in a closure variable is boxed on every draw, and the sampling loop's optimized code would be
  * thrown away whenever a collection cleared the shape of a short-lived generator object.
  */
 const drawState = new Uint32Array(1);

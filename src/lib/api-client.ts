@@ -66,7 +66,7 @@ export async function send<T>(url: string, init: RequestInit, answerSchema: Answ
     response = await fetch(url, { credentials: 'same-origin', ...init });
   } catch (error) {
     if (error instanceof DOMException && error.name === 'AbortError') {
-      return { ok: false, status: 0, code: 'ABORTED', message: 'The request was cancelled.', issues: [] };
+      return { ok: false, status: 0, code: 'ABORTED', message: 'The request was canceled.', issues: [] };
     }
     return NO_ANSWER;
   }
@@ -75,7 +75,7 @@ export async function send<T>(url: string, init: RequestInit, answerSchema: Answ
     body = await response.json();
   } catch (error) {
     if (error instanceof DOMException && error.name === 'AbortError') {
-      return { ok: false, status: 0, code: 'ABORTED', message: 'The request was cancelled.', issues: [] };
+      return { ok: false, status: 0, code: 'ABORTED', message: 'The request was canceled.', issues: [] };
     }
     body = null;
   }

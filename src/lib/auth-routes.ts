@@ -7,7 +7,7 @@
 export const OPEN_AUTH_ROUTES: ReadonlyArray<{ method: 'GET' | 'POST'; pattern: RegExp; why: string }> = [
   { method: 'GET', pattern: /^\/magic-link\/verify$/, why: 'the link in a sign-in e-mail' },
   { method: 'GET', pattern: /^\/get-session$/, why: 'the session, for a page that asks' },
-  { method: 'GET', pattern: /^\/ok$/, why: "better-auth's own liveness answer (the authorisation matrix probes it)" },
+  { method: 'GET', pattern: /^\/ok$/, why: "better-auth's own liveness answer (the authorization matrix probes it)" },
   { method: 'POST', pattern: /^\/sign-out$/, why: 'signing out' },
   { method: 'GET', pattern: /^\/reset-password\/[^/]+$/, why: 'a password-reset link (token-bound)' },
   { method: 'POST', pattern: /^\/reset-password$/, why: 'setting a new password with a reset token' },

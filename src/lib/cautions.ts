@@ -33,14 +33,14 @@ export const cautions: readonly Caution[] = [
   {
     glyph: 'drop',
     tone: 'cold',
-    title: 'Cold lines need a vapour retarder',
-    text: 'Chilled-water and glycol lines need a continuous, sealed vapour retarder, or they sweat, drip and soak their insulation.',
+    title: 'Cold lines need a vapor retarder',
+    text: 'Chilled-water and glycol lines need a continuous, sealed vapor retarder, or they sweat, drip and soak their insulation.',
   },
   {
     glyph: 'jacket',
     tone: 'plain',
     title: 'Food zones need cleanable, jacketed insulation',
-    text: 'Over or near product, insulation must sit in a smooth, sealed jacket that stands up to washdown, with no fibre exposed.',
+    text: 'Over or near product, insulation must sit in a smooth, sealed jacket that stands up to washdown, with no fiber exposed.',
   },
   {
     glyph: 'ladder',

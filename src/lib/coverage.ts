@@ -1,6 +1,6 @@
 /**
  * Whether a consultant covers a plant's postal code, asked before the owner sends: the same
- * normalising and routing a submission goes through, so the answer is the routing's own.
+ * normalizing and routing a submission goes through, so the answer is the routing's own.
  */
 import { getDb } from '../db/client';
 import { findCoverage } from '../db/queries/coverage';

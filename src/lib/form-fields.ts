@@ -14,7 +14,7 @@ export interface FieldContext {
   readonly system: UnitSystem;
   /** ISO code of the plant's currency, e.g. USD. */
   readonly currency: string;
-  /** How the fuel's price unit reads in a sentence: "therm", "cubic metre (m³)". */
+  /** How the fuel's price unit reads in a sentence: "therm", "cubic meter (m³)". */
   readonly priceUnitName: string;
 }
 
@@ -48,7 +48,7 @@ export const FORM_FIELDS = {
   },
   'estimate.conditions.indoorAirTemperatureC': { label: 'Air temperature inside', quantity: 'temperature' },
   'estimate.conditions.indoorRelativeHumidityPercent': { label: 'Humidity inside', quantity: 'percent' },
-  'estimate.conditions.draughtyAirSpeedMPerS': { label: 'Air speed in draughty spots', quantity: 'speed' },
+  'estimate.conditions.draughtyAirSpeedMPerS': { label: 'Air speed in drafty spots', quantity: 'speed' },
   'estimate.conditions.outdoorAirTemperatureC': { label: 'Outdoor air temperature while running', quantity: 'temperature' },
   'estimate.conditions.outdoorRelativeHumidityPercent': { label: 'Outdoor humidity', quantity: 'percent' },
   'estimate.conditions.outdoorWindSpeedMPerS': { label: 'Typical wind speed', quantity: 'speed' },

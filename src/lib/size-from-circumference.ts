@@ -13,7 +13,7 @@ export interface SizeMatch {
   readonly entry: PipeSizeEntry;
   /** Outside diameter of the size, m. */
   readonly outerDiameterM: number;
-  /** (catalogue − measured) / measured diameter. */
+  /** (catalog − measured) / measured diameter. */
   readonly deviation: number;
 }
 

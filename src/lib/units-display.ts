@@ -141,7 +141,7 @@ export function formatConverted(value: unknown, quantity: DisplayQuantity, syste
 export function parseTyped(text: string): number | string | undefined {
   const trimmed = text.trim().replace(/\s+/g, '').replace(/−/g, '-');
   if (trimmed === '') return undefined;
-  const normalised = trimmed.includes('.') ? trimmed.replace(/,/g, '') : trimmed.replace(',', '.');
-  if (!/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(normalised)) return trimmed;
-  return Number(normalised);
+  const normalized = trimmed.includes('.') ? trimmed.replace(/,/g, '') : trimmed.replace(',', '.');
+  if (!/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(normalized)) return trimmed;
+  return Number(normalized);
 }

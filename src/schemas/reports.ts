@@ -24,7 +24,7 @@ export const runChoiceSchema = z.object({
   option: z.enum(OPTION_KINDS, { error: `Option must be one of ${OPTION_KINDS.join(', ')}.` }).optional(),
   material: z.enum(INSULATION_MATERIAL_IDS, { error: `Material must be one of ${INSULATION_MATERIAL_IDS.join(', ')}.` }).optional(),
   thicknessM: z
-    .number({ error: 'Thickness must be a number in metres.' })
+    .number({ error: 'Thickness must be a number in meters.' })
     .gt(0, { error: 'Thickness must be more than 0.' })
     .lt(0.5, { error: 'Thickness must be under 0.5 m (about 20 in).' })
     .optional(),

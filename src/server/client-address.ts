@@ -28,14 +28,14 @@ export function trustedProxies(spec: string | undefined): BlockList {
   return list;
 }
 
-function normalise(address: string): string {
+function normalize(address: string): string {
   // An IPv4 peer on a dual-stack socket shows as ::ffff:a.b.c.d.
   return address.startsWith('::ffff:') && isIP(address.slice(7)) === 4 ? address.slice(7) : address;
 }
 
 /** True when the socket's peer is one of our proxies. */
 export function isTrustedPeer(proxies: BlockList, peer: string | undefined): boolean {
-  return isTrusted(proxies, normalise(peer ?? ''));
+  return isTrusted(proxies, normalize(peer ?? ''));
 }
 
 function isTrusted(list: BlockList, address: string): boolean {
@@ -46,11 +46,11 @@ function isTrusted(list: BlockList, address: string): boolean {
 
 /** The client's address for this request. */
 export function clientAddressOf(peer: string | undefined, forwardedFor: string | string[] | undefined, proxies: BlockList): string {
-  let current = normalise(peer ?? '');
+  let current = normalize(peer ?? '');
   if (!current) return 'unknown';
   const hops = (Array.isArray(forwardedFor) ? forwardedFor.join(',') : (forwardedFor ?? ''))
     .split(',')
-    .map((hop) => normalise(hop.trim()))
+    .map((hop) => normalize(hop.trim()))
     .filter(Boolean);
   while (isTrusted(proxies, current) && hops.length > 0) {
     const next = hops.pop()!;

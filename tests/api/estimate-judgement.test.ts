@@ -1,5 +1,5 @@
 /**
- * The cases of the estimate's judgement (issue 9), each run through POST /api/estimate and
+ * The cases of the estimate's judgment (issue 9), each run through POST /api/estimate and
  * named after what it catches. Before/after figures are in the issue's closing note.
  */
 import { describe, expect, it } from 'vitest';
@@ -16,7 +16,7 @@ async function estimate(body: Json, detail = ''): Promise<Json> {
 
 const dryRoom = { id: 'dry', label: 'Process room', preset: 'process-room', average: { airTemperatureC: 20, relativeHumidityPercent: 60, airSpeedMPerS: 0 }, design: { wetAirTemperatureC: 20, wetRelativeHumidityPercent: 60 } };
 
-describe('the estimate’s judgement, through /api/estimate', () => {
+describe('the estimate’s judgment, through /api/estimate', () => {
   it('a cheap warm copper line is left as it is, not insulated at a 130-year payback', async () => {
     const r = await estimate({ operatingHoursPerYear: 6000, energy, runs: [{ id: 'a', label: 'Wash hose line', service: 'hot-water', fluidTemperatureC: 40, pipe: { standard: 'ASTM-B88-L', size: '3/4' }, lengthM: 10, operatingHoursPerYear: 500 }] });
     expect(r.runs[0].proposed.option).toBe('leave');
@@ -39,7 +39,7 @@ describe('the estimate’s judgement, through /api/estimate', () => {
     expect(r.totals.simplePaybackYears).toBeNull();
   });
 
-  it('a run with a bare fifth is repaired on its bare metres, not re-insulated end to end', async () => {
+  it('a run with a bare fifth is repaired on its bare meters, not re-insulated end to end', async () => {
     const r = await estimate({ energy, runs: [{ id: 'a', label: 'Main', service: 'steam', pipe: { standard: 'ASME-B36.10M', size: '3' }, lengthM: 40, current: { state: 'damaged', bareFraction: 0.2, material: 'mineral-wool', thicknessM: 0.0508 } }] }, '?detail=full');
     const run = r.runs[0];
     expect(run.proposed.option).toBe('repair');
@@ -171,7 +171,7 @@ describe('the estimate’s judgement, through /api/estimate', () => {
     expect(issue.message).toMatch(/8760 h\/yr.*leap year 8784/);
   });
 
-  it('soft notices: a run over a kilometre and glycol above 60 °C are said at the field, not refused', async () => {
+  it('soft notices: a run over a kilometer and glycol above 60 °C are said at the field, not refused', async () => {
     const r = await estimate({ energy, runs: [{ id: 'a', label: 'Long', service: 'glycol', fluidTemperatureC: 70, pipe: { standard: 'ASME-B36.10M', size: '2' }, lengthM: 1500 }] });
     const codes = r.runs[0].notices.map((n: Json) => n.code);
     expect(codes).toEqual(expect.arrayContaining(['RUN_LONGER_THAN_1_KM', 'GLYCOL_ABOVE_60C']));

@@ -39,7 +39,7 @@ const HOLDER = `reports-holder-${STAMP}@tallowwood-thermal.example`;
 const NEIGHBOUR = `reports-neighbour-${STAMP}@ironbark-lagging.example`;
 
 let holder: string;
-let neighbour: string;
+let neighbor: string;
 let owner: string;
 let otherOwner: string;
 let admin: string;
@@ -72,7 +72,7 @@ describe('the follow-up report', () => {
     lead = await submitLead('2201', { email: `reports-owner.${STAMP}@tallowwood-dairy.example`, company: `Tallowwood Dairy ${STAMP}` });
     const other = await submitLead('2202', { email: `reports-other.${STAMP}@tallowwood-bakery.example` });
     holder = await passwordCookie(HOLDER);
-    neighbour = await passwordCookie(NEIGHBOUR);
+    neighbor = await passwordCookie(NEIGHBOUR);
     admin = await passwordCookie('admin@lagwise.example', DEMO_PASSWORD);
     [owner, otherOwner] = await Promise.all([ownerCookie(lead.ownerEmail), ownerCookie(other.ownerEmail)]);
     expect((await asPerson(holder, `/api/leads/${lead.id}/claim`, { method: 'POST', body: {} })).status).toBe(200);
@@ -104,7 +104,7 @@ describe('the follow-up report', () => {
     const after = await json<{ prices: { currency: string; priceTable: { label: string } } }>(await asPerson(holder, '/api/consultants/me/prices'));
     expect(after.prices).toMatchObject({ currency: 'AUD', priceTable: { label: 'Tallowwood Thermal 2026 rates' } });
     // Another consultant's table is their own.
-    expect((await json<{ prices: unknown }>(await asPerson(neighbour, '/api/consultants/me/prices'))).prices).toBeNull();
+    expect((await json<{ prices: unknown }>(await asPerson(neighbor, '/api/consultants/me/prices'))).prices).toBeNull();
     expect((await asPerson(owner, '/api/consultants/me/prices')).status).toBe(403);
     expect((await asPerson(null, '/api/consultants/me/prices')).status).toBe(401);
   });
@@ -136,7 +136,7 @@ describe('the follow-up report', () => {
       [{ photoIds: [randomUUID()] }, 'photoIds.0'],
       [{ notes: 'x'.repeat(4001) }, 'notes'],
       [{ notes: 'bad \u202e text' }, 'notes'],
-      [{ colour: 'teal' }, '(body)'],
+      [{ color: 'teal' }, '(body)'],
     ];
     for (const [body, path] of cases) {
       const response = await asPerson(holder, `/api/reports/${draftId}`, { method: 'PATCH', body });
@@ -236,7 +236,7 @@ describe('the follow-up report', () => {
     const missing = await (await asPerson(otherOwner, `/api/reports/${randomUUID()}`)).text();
     const probes = [
       { who: 'another owner', cookie: otherOwner, paths: [`/api/reports/${v1}`, `/api/reports/${v1}/pdf`, `/my/reports/${v1}`] },
-      { who: 'a consultant of the region who does not hold the lead', cookie: neighbour, paths: [`/api/reports/${v1}`, `/api/reports/${v1}/pdf`, `/api/leads/${lead.id}/reports`, `/desk/reports/${v1}`] },
+      { who: 'a consultant of the region who does not hold the lead', cookie: neighbor, paths: [`/api/reports/${v1}`, `/api/reports/${v1}/pdf`, `/api/leads/${lead.id}/reports`, `/desk/reports/${v1}`] },
     ];
     for (const { who, cookie, paths } of probes) {
       for (const path of paths) expect((await asPerson(cookie, path)).status, `${who}: ${path}`).toBe(404);

@@ -1,5 +1,5 @@
 /**
- * The authorisation matrix: every on-demand page and API route (found in src/pages) × every
+ * The authorization matrix: every on-demand page and API route (found in src/pages) × every
  * kind of visitor → the status each must get. A route added without a row fails the first test;
  * adding a row is one line in `rows` below. The persona-specific threats have their own tests in
  * tests/auth/guards.test.ts.
@@ -194,7 +194,7 @@ function send(row: Row, persona: Persona): Promise<Response> {
   return appFetch(row.path(world), { method: row.method === 'ALL' ? 'GET' : row.method, headers, body });
 }
 
-describe('the authorisation matrix', () => {
+describe('the authorization matrix', () => {
   beforeAll(async () => {
     const inRegion = await ensureDeskRegion('test-matrix-gum-flats', 'Gum Flats (matrix)', ['37']);
     const outRegion = await ensureDeskRegion('test-matrix-saltbush', 'Saltbush Plains (matrix)', ['36']);
@@ -238,7 +238,7 @@ describe('the authorisation matrix', () => {
     const missing = onDemandRoutes()
       .map((r) => `${r.method} ${r.route}`)
       .filter((key) => !covered.has(key));
-    expect(missing, 'routes without a row in the authorisation matrix').toEqual([]);
+    expect(missing, 'routes without a row in the authorization matrix').toEqual([]);
   });
 
   for (const row of rows) {

@@ -131,7 +131,7 @@ describe('the estimate wizard in a browser', () => {
       }
       throw new Error(`Tab never reached ${JSON.stringify(target)}`);
     }
-    const labelled = (label: string): Target => ({ label });
+    const labeled = (label: string): Target => ({ label });
     async function choose(optionText: string): Promise<void> {
       for (let presses = 0; presses < 40; presses++) {
         const chosen = await page.evaluate(() => {
@@ -145,26 +145,26 @@ describe('the estimate wizard in a browser', () => {
     }
     const runCount = () => page.locator('.run-card').count();
 
-    await tabTo(labelled('Plant name'));
+    await tabTo(labeled('Plant name'));
     await page.keyboard.type('Hollin Beck Creamery');
-    await tabTo(labelled('What the plant makes'));
+    await tabTo(labeled('What the plant makes'));
     await choose('Creamery or dairy');
-    await tabTo(labelled('Country'));
+    await tabTo(labeled('Country'));
     await choose('United States');
-    await tabTo(labelled('Postal code'));
+    await tabTo(labeled('Postal code'));
     await page.keyboard.type('97214');
     await page.keyboard.press('Enter');
     await waitForStep(page, 'Fuel and its price');
 
-    await tabTo(labelled('Fuel price ('));
+    await tabTo(labeled('Fuel price ('));
     await page.keyboard.type('1.15');
     await page.keyboard.press('Enter');
     await waitForStep(page, 'Pipe runs');
 
-    await tabTo(labelled('Name of the run'));
+    await tabTo(labeled('Name of the run'));
     await page.keyboard.press('ControlOrMeta+A');
     await page.keyboard.type('Boiler header');
-    await tabTo(labelled('Length'));
+    await tabTo(labeled('Length'));
     await page.keyboard.type('120');
 
     await tabTo({ text: '+ Add a run' });
@@ -174,7 +174,7 @@ describe('the estimate wizard in a browser', () => {
     expect(await page.evaluate(() => document.activeElement?.id)).toBe('f-estimate-runs-1-label');
     await page.keyboard.press('ControlOrMeta+A');
     await page.keyboard.type('Kettle drop');
-    await tabTo(labelled('Length'));
+    await tabTo(labeled('Length'));
     await page.keyboard.type('40');
 
     await tabTo({ text: 'Duplicate', describedBy: 'run-1-heading' }, true);
@@ -223,7 +223,7 @@ describe('the estimate wizard in a browser', () => {
     await context.close();
   });
 
-  it('keeps a length through unit switches (131 ft reads 39.9 m in SI and 131 ft again in US); the catalogue stays the plant’s', async () => {
+  it('keeps a length through unit switches (131 ft reads 39.9 m in SI and 131 ft again in US); the catalog stays the plant’s', async () => {
     const { context, page, problems } = await openEstimate(browser);
     await page.getByLabel(/^US/).check();
     await fillPlant(page);
@@ -243,7 +243,7 @@ describe('the estimate wizard in a browser', () => {
     await page.getByLabel(/^US/).check();
     expect(await length.inputValue()).toBe('131');
 
-    // A length that is not a round number of metres comes back exactly as typed.
+    // A length that is not a round number of meters comes back exactly as typed.
     await length.fill('33.35');
     await length.blur();
     await page.getByLabel(/^SI/).check();

@@ -12,9 +12,9 @@ const fixtures = [
 ];
 
 async function route(typed: string): Promise<string | null> {
-  const normalised = normalisePostalCode('NZ', typed);
-  if (!normalised.ok) throw new Error(normalised.message);
-  const match = await findRegionForPostalCode(getDb(), 'NZ', normalised.routingKey);
+  const normalized = normalisePostalCode('NZ', typed);
+  if (!normalized.ok) throw new Error(normalized.message);
+  const match = await findRegionForPostalCode(getDb(), 'NZ', normalized.routingKey);
   return match?.regionName ?? null;
 }
 

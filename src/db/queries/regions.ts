@@ -28,7 +28,7 @@ export async function findRegionForPostalCode(
 }
 
 /**
- * Serialises routing against region changes: a submission routes under the shared lock, a
+ * Serializes routing against region changes: a submission routes under the shared lock, a
  * change of prefixes holds it alone, so no assessment is routed against prefixes that are being
  * changed and then missed by the change's re-routing of unrouted assessments.
  */

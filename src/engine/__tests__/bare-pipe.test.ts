@@ -18,7 +18,7 @@ const OXIDISED_STEEL = SURFACES.find((s) => s.id === 'bare-carbon-steel')?.emitt
  * The source's conventions: horizontal steel pipe, 75 °F still air, surroundings at
  * air temperature, pipe surface at the steam's saturation temperature (thin wall,
  * a very large condensing film). The source states no emittance; the engine's
- * catalogue value for oxidised steel (0.8) is used.
+ * catalog value for oxidized steel (0.8) is used.
  */
 function doeCase(pipeOuterDiameterM: number, gaugePressureKPa: number, emittance: number): RunInput {
   return {

@@ -59,9 +59,9 @@ describe('laminar inside film with its entry length (Hausen, Incropera eq. 8.57)
   });
 });
 
-describe('latent gain (Chilton–Colburn) and its vapour figures', () => {
+describe('latent gain (Chilton–Colburn) and its vapor figures', () => {
   psychrolib.SetUnitSystem(psychrolib.SI);
-  it.each([-10, 0, 5, 10, 20, 30])('saturation vapour pressure at %d °C is within 0.5 % of psychrolib', (t) => {
+  it.each([-10, 0, 5, 10, 20, 30])('saturation vapor pressure at %d °C is within 0.5 % of psychrolib', (t) => {
     expectWithin(saturationVapourPressureKPa(t), {
       name: `p_sat ${t} °C`,
       expected: psychrolib.GetSatVapPres(t) / 1000,
@@ -70,13 +70,13 @@ describe('latent gain (Chilton–Colburn) and its vapour figures', () => {
     });
   });
 
-  it('the Lewis number of water vapour in air near 300 K is about 0.85 (±0.03)', () => {
+  it('the Lewis number of water vapor in air near 300 K is about 0.85 (±0.03)', () => {
     const alpha = 15.89e-6 / 0.707;
     expectWithin(alpha / vapourDiffusivityM2PerS(300), {
-      name: 'Le air–water vapour',
+      name: 'Le air–water vapor',
       expected: 0.85,
       tolerance: { absolute: 0.03 },
-      source: 'Incropera et al., Fundamentals of Heat and Mass Transfer, §6.7 (Le for water vapour in air) — from memory',
+      source: 'Incropera et al., Fundamentals of Heat and Mass Transfer, §6.7 (Le for water vapor in air) — from memory',
     });
   });
 
@@ -90,7 +90,7 @@ describe('latent gain (Chilton–Colburn) and its vapour figures', () => {
 describe('resistances that sum to the real driving difference', () => {
   it.each([
     ['radiating to colder surroundings', { surroundingsTemperatureC: 5 }],
-    ['with vapour condensing', { fluidTemperatureC: 4, relativeHumidityPercent: 85 }],
+    ['with vapor condensing', { fluidTemperatureC: 4, relativeHumidityPercent: 85 }],
     ['in wind', { windSpeedMPerS: 4, insulation: [{ thicknessM: 0.025, material: 'mineral-wool' as const }] }],
   ])('%s: q′ × ΣR = fluid − air', (_name, extra) => {
     const r = solveRun({ pipe: { standard: 'ASME-B36.10M', size: '2' }, fluidTemperatureC: 80, ambientTemperatureC: 20, ...extra });

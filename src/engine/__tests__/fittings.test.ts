@@ -6,7 +6,7 @@ import { expectWithin, type ReferenceRow } from './reference-rows';
 const DOE17 =
   "US DOE Steam Tip Sheet #17 'Install Removable Insulation on Valves and Fittings', table of savings from 1-in removable valve covers (150-lb flanged valve, 65 °F still air) — cells from memory via a secondary copy of the table (references.md §4)";
 
-/** Saving of a 1-in cover: the flanged valve's equivalent bare length (data/fittings.ts), bare (ε 0.8) minus covered (glass fibre, fabric ε 0.9). */
+/** Saving of a 1-in cover: the flanged valve's equivalent bare length (data/fittings.ts), bare (ε 0.8) minus covered (glass fiber, fabric ε 0.9). */
 function coverSavingW(nps: number, surfaceC: number): number {
   const base = {
     pipe: { standard: 'ASME-B36.10M', size: String(nps), schedule: '40' },
@@ -69,7 +69,7 @@ describe('valve covers against US DOE Steam Tip Sheet #17 (±20 %)', () => {
     expectWithin(coverSavingW(6, 207.802), { name: 'T4-DOE17-EX model', expected: btuPerHourToWatts(5992), tolerance: { relative: 0.2 }, source: DOE17 });
   });
 
-  it('T4-DOE2-6in-valve-area: the 6-in valve modelled has more than 6 ft² (0.557 m²) of surface', () => {
+  it('T4-DOE2-6in-valve-area: the 6-in valve modeled has more than 6 ft² (0.557 m²) of surface', () => {
     const area = fittingAreaM2('valve-flanged', lookupPipe('ASME-B36.10M', '6').outerDiameterM);
     expect(area).toBeGreaterThanOrEqual(0.557418);
   });

@@ -54,7 +54,7 @@ const actual: Record<string, () => number> = {
   'T9-UNIT-therm': () => toSI('energy', 1, 'therm'),
   'T9-UNIT-MMBtu-kWh': () => fromSI('energy', toSI('energy', 1, 'MMBtu'), 'kWh'),
   'T9-NG-kgCO2-per-kWhHHV': () => (factor('natural-gas', 'us-epa-2024') * 3.6e6) / 1e9,
-  // The catalogue holds IPCC factors on a gross basis (× net/gross); undo it to compare.
+  // The catalog holds IPCC factors on a gross basis (× net/gross); undo it to compare.
   'T9-IPCC-NG': () => factor('natural-gas', 'ipcc-2006') / 0.9,
   'T9-IPCC-gasoil': () => factor('fuel-oil-2', 'ipcc-2006') / 0.94,
   'T9-IPCC-LPG': () => factor('propane', 'ipcc-2006') / 0.92,

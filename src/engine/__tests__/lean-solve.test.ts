@@ -47,7 +47,7 @@ function resolved(r: AnyRun): ResolvedRun {
     insulation: r.layers.map((l) => (l.k !== undefined ? { thicknessM: l.t, conductivityWPerMK: l.k } : { thicknessM: l.t, material: l.m })),
   };
   const parsed = runInputSchema.safeParse(input);
-  // A catalogue material rated for other temperatures is refused at the door; the same layers with a plain conductivity are solved instead.
+  // A catalog material rated for other temperatures is refused at the door; the same layers with a plain conductivity are solved instead.
   if (!parsed.success) {
     const plain = { ...input, insulation: r.layers.map((l) => ({ thicknessM: l.t, conductivityWPerMK: l.k ?? 0.05 })) };
     return prepareRun(runInputSchema.parse(plain)).resolved;

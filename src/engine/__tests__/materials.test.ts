@@ -9,7 +9,7 @@ const material = (id: InsulationMaterialId) => {
 };
 
 const NIA = 'NIA Insulation Materials Specification Chart, April 2024 — maximum apparent conductivity (references.md §7, read-here)';
-// Upper bounds ("le"): the catalogue's design curve must not exceed the specification maximum.
+// Upper bounds ("le"): the catalog's design curve must not exceed the specification maximum.
 const ceilings: { name: string; id: InsulationMaterialId; meanC: number; max: number; source: string }[] = [
   { name: 'T7-NIA-C534G1-0F', id: 'flexible-elastomeric', meanC: -17.7778, max: 0.0374993, source: NIA },
   { name: 'T7-NIA-C534G1-75F', id: 'flexible-elastomeric', meanC: 23.8889, max: 0.0403838, source: NIA },
@@ -51,7 +51,7 @@ describe('insulation conductivity curves', () => {
 
   // Frankel's cellular-glass K (0.40 Btu·in/h·ft²·°F at 50 °F) is the older product;
   // the current C552 Grade 6 ceiling is 0.34 at 75 °F (NIA chart, above), so no curve
-  // can meet both. The catalogue follows the current specification: −21.7 % here, kept as data.
+  // can meet both. The catalog follows the current specification: −21.7 % here, kept as data.
   it('T7-FPSH53-C552 misses by its recorded −21.7 % (older product, see comment)', () => {
     const row = { name: 'T7-FPSH53-C552', expected: 0.0576912, tolerance: { relative: 0.15 }, source: FRANKEL } as const;
     const measured = deviation(conductivityAt(material('cellular-glass').conductivity, 10), row);

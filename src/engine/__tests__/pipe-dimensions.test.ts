@@ -71,7 +71,7 @@ describe('pipe dimensions', () => {
     },
   );
 
-  it('every catalogue entry has a positive bore', () => {
+  it('every catalog entry has a positive bore', () => {
     for (const standard of PIPE_STANDARDS) {
       for (const size of standard.sizes) {
         expect(size.wallsM[size.defaultSchedule], `${standard.id} ${size.size}`).toBeDefined();

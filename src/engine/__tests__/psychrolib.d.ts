@@ -5,7 +5,7 @@ declare module 'psychrolib' {
     IP: number;
     SetUnitSystem(units: number): void;
     GetTDewPointFromRelHum(dryBulbTemperatureC: number, relativeHumidity: number): number;
-    /** Saturation vapour pressure, Pa (SI). */
+    /** Saturation vapor pressure, Pa (SI). */
     GetSatVapPres(dryBulbTemperatureC: number): number;
   };
   export default psychrolib;

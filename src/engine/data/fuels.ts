@@ -43,7 +43,7 @@ export interface Fuel {
   readonly quantityUnit: 'm3' | 'litre' | 'kWh';
   /** Higher heating value per physical unit, J (per standard m³ at 60 °F, 1 atm for gas). */
   readonly heatingValueJPerQuantityUnit: number;
-  /** Density of the liquid, kg per litre, for prices per kg (liquids only). */
+  /** Density of the liquid, kg per liter, for prices per kg (liquids only). */
   readonly densityKgPerLitre: number | null;
   readonly priceUnits: readonly FuelPriceUnit[];
   readonly defaultPriceUnit: FuelPriceUnit;

@@ -1,6 +1,6 @@
 /**
  * IAPWS-IF97 coefficients used by the engine (saturation line and the enthalpy of
- * saturated liquid and vapour).
+ * saturated liquid and vapor).
  *
  * Source: IAPWS R7-97(2012), "Revised Release on the IAPWS Industrial Formulation
  * 1997 for the Thermodynamic Properties of Water and Steam": Table 34 (region 4,

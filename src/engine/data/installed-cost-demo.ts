@@ -3,7 +3,7 @@
  * and not market data. A consultant replaces this table with their own prices
  * (PlantInput.priceTable); every result states which table it used.
  *
- * Installed cost per metre of straight pipe (material, PVC jacket and labour) by
+ * Installed cost per meter of straight pipe (material, PVC jacket and labor) by
  * pipe outside diameter (rows) and insulation thickness (columns), in the plant's
  * currency, for a material with installedCostFactor 1 (mineral wool). Removable
  * covers for valves and flange pairs are priced per fitting by pipe OD.

@@ -6,7 +6,7 @@
  * at or just below the maximum apparent thermal conductivity of the material's
  * ASTM specification, as listed in the NIA Insulation Materials Specification
  * Chart (April 2024) for C534 Grade 1, C552 Grade 6 Type II and C591 Grade 2, and
- * in ASTM C547-17 / C533-17 Table 1 (from memory) for glass fibre, mineral wool
+ * in ASTM C547-17 / C533-17 Table 1 (from memory) for glass fiber, mineral wool
  * and calcium silicate. A curve at the specification ceiling gives a slightly
  * conservative (higher) heat loss than a good product would. The fit points are
  * listed beside each curve so the fit can be redone.
@@ -41,7 +41,7 @@ export interface InsulationMaterial {
 export const INSULATION_MATERIALS = [
   {
     id: 'glass-fibre',
-    name: 'Glass fibre pipe section',
+    name: 'Glass fiber pipe section',
     standard: 'ASTM C547 Type I',
     conductivity: { a: 0.030762, b: 1.0299e-4, c: 2.4383e-7 },
     fitPoints: [
@@ -161,7 +161,7 @@ export const INSULATION_MATERIALS = [
   },
 ] as const satisfies readonly InsulationMaterial[];
 
-/** Identifier of a catalogue insulation material. */
+/** Identifier of a catalog insulation material. */
 export type InsulationMaterialId = (typeof INSULATION_MATERIALS)[number]['id'];
 
 /** Material identifiers, for schemas and drop-downs. */

@@ -2,8 +2,8 @@ import type { PipeStandardId } from './pipe-dimensions';
 
 /**
  * Markets: what a plant's country decides for the estimate's money — which stock thickness
- * series insulation is sold in (inch series per ASTM C585 in North America, millimetres
- * elsewhere) — and the catalogue defaults a form offers there. Display units never change
+ * series insulation is sold in (inch series per ASTM C585 in North America, millimeters
+ * elsewhere) — and the catalog defaults a form offers there. Display units never change
  * these; they only convert. Common practice (our own reading of each market).
  */
 export const MARKETS = [
@@ -30,7 +30,7 @@ export const MARKET_IDS = MARKETS.map((m) => m.id) as [MarketId, ...MarketId[]];
 
 
 
-/** The market of a plant's country (ISO 3166 alpha-2); unknown countries get the millimetre market of Europe. */
+/** The market of a plant's country (ISO 3166 alpha-2); unknown countries get the millimeter market of Europe. */
 export function marketForCountry(countryCode: string): MarketId {
   const code = countryCode.trim().toUpperCase();
   const direct = MARKETS.find((m) => m.id === code);

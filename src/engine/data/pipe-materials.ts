@@ -6,7 +6,7 @@
  * a typical 339 W/(m·K) — all from memory. The wall is a small resistance beside
  * the surface film, so a constant k is enough.
  *
- * Bare-surface emittance (oxidised carbon steel 0.8, stainless as supplied 0.3,
+ * Bare-surface emittance (oxidized carbon steel 0.8, stainless as supplied 0.3,
  * tarnished copper 0.6): from memory, usual design values; see surfaces.ts.
  */
 export const PIPE_MATERIALS = [

@@ -1,5 +1,5 @@
 /**
- * The consultant's price grid: a price per metre for each pipe size (rows) and insulation
+ * The consultant's price grid: a price per meter for each pipe size (rows) and insulation
  * thickness (columns), and one removable fitting cover per pipe size, in one currency. Starts
  * from the demo grid until the consultant saves their own; saved whole with PUT.
  */
@@ -9,8 +9,8 @@ import type { PriceTableResponse } from '../../schemas/reports';
 
 type Grid = PriceTableResponse['demo']['priceTable'];
 
-function inches(metres: number): string {
-  return `${Number((metres / 0.0254).toFixed(2))} in`;
+function inches(meters: number): string {
+  return `${Number((meters / 0.0254).toFixed(2))} in`;
 }
 
 export default function PriceTableEditor({ initial }: { initial: PriceTableResponse }) {
@@ -44,7 +44,7 @@ export default function PriceTableEditor({ initial }: { initial: PriceTableRespo
       </div>
       <div className="overflow-x-auto rounded-plate border border-line bg-surface" tabIndex={0} role="region" aria-label="Price grid, scrolls sideways">
         <table className="price-grid w-full text-sm">
-          <caption className="p-2 text-left text-graphite-soft">Price per metre of pipe, installed, by pipe outside diameter and insulation thickness</caption>
+          <caption className="p-2 text-left text-graphite-soft">Price per meter of pipe, installed, by pipe outside diameter and insulation thickness</caption>
           <thead className="bg-sunken">
             <tr>
               <th scope="col" className="px-2 py-1 text-left">
@@ -73,7 +73,7 @@ export default function PriceTableEditor({ initial }: { initial: PriceTableRespo
                       type="number"
                       min={0}
                       step="any"
-                      aria-label={`Price per metre, ${Number((od * 1000).toFixed(1))} mm pipe, ${Math.round(t * 1000)} mm thick`}
+                      aria-label={`Price per meter, ${Number((od * 1000).toFixed(1))} mm pipe, ${Math.round(t * 1000)} mm thick`}
                       className="w-20 text-right"
                       value={Number.isFinite(grid.costPerMetre[row]?.[column]) ? grid.costPerMetre[row]?.[column] : ''}
                       onChange={(e) => setCell(row, column, e.target.value)}

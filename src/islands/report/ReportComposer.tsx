@@ -554,8 +554,8 @@ export default function ReportComposer({ leadId, reference, draft: initial, late
     </div>
   );
 
-  function displayThickness(metres: number): string {
-    return `${Number(thicknessUnit.fromBase(metres).toFixed(2))} ${thicknessUnit.symbol}`;
+  function displayThickness(meters: number): string {
+    return `${Number(thicknessUnit.fromBase(meters).toFixed(2))} ${thicknessUnit.symbol}`;
   }
 }
 

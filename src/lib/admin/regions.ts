@@ -97,7 +97,7 @@ async function overlapsOf(db: Executor, regionId: string, target: Target) {
 }
 
 /** Leads moved, in words and counts, by region name. */
-async function summarise(db: Executor, rerouted: Rerouted[]): Promise<RoutingChange> {
+async function summarize(db: Executor, rerouted: Rerouted[]): Promise<RoutingChange> {
   const names = new Map((await listRegionRows(db, 1)).map((r) => [r.id, r.name]));
   const name = (id: string | null) => (id ? (names.get(id) ?? 'a region') : null);
   const moved = new Map<string, { from: string | null; to: string | null; count: number }>();
@@ -200,7 +200,7 @@ export async function createRegion(admin: SessionUser, request: CreateRegionRequ
     });
     await announceRerouted(tx, sqlRunner, admin, regionId, rerouted);
     const [region] = await listRegions(tx, [regionId]);
-    return { region: region!, overlaps, routing: await summarise(tx, rerouted) };
+    return { region: region!, overlaps, routing: await summarize(tx, rerouted) };
   });
 }
 
@@ -267,7 +267,7 @@ export async function updateRegion(admin: SessionUser, regionId: string | undefi
     });
     await announceRerouted(tx, sqlRunner, admin, regionId, rerouted);
     const [region] = await listRegions(tx, [regionId]);
-    return { region: region!, overlaps, routing: await summarise(tx, rerouted) };
+    return { region: region!, overlaps, routing: await summarize(tx, rerouted) };
   });
 }
 
@@ -296,6 +296,6 @@ export async function retireRegion(admin: SessionUser, regionId: string | undefi
     });
     await announceRerouted(tx, sqlRunner, admin, regionId, rerouted);
     const [region] = await listRegions(tx, [regionId]);
-    return { region: region!, overlaps: [], routing: await summarise(tx, rerouted) };
+    return { region: region!, overlaps: [], routing: await summarize(tx, rerouted) };
   });
 }

@@ -54,7 +54,7 @@ function recompute(input: unknown): PlantResult | null {
  * - Made by another engine version (or of a shape today's schema refuses): worked out again
  *   from the stored inputs with today's engine (`recomputed`). We recompute rather than show
  *   the old figures with a mark because a version bump means a published check or a
- *   catalogue entry changed the method's answer, and because the result's shape follows the
+ *   catalog entry changed the method's answer, and because the result's shape follows the
  *   engine — old snapshots need not carry what today's screens show, and keeping a schema
  *   per past version would be a second engine history to maintain. The engine is
  *   deterministic (seeded ranges), so a recompute gives the same figures every time; callers

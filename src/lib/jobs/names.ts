@@ -16,7 +16,7 @@ export const jobNames = {
   requestSignInLink: 'sign-in-link-request',
   /** Render a sent report's PDF into object storage, then queue the owner's e-mail with it attached. */
   renderReportPdf: 'report-pdf-render',
-  /** Daily (pg-boss schedule): remove or anonymise what the privacy page says goes (src/lib/retention). */
+  /** Daily (pg-boss schedule): remove or anonymize what the privacy page says goes (src/lib/retention). */
   sweepRetention: 'retention-sweep',
 } as const;
 

@@ -79,7 +79,7 @@ export function isLeadId(value: string | undefined): value is string {
 
 /**
  * The postal area everyone who reaches a lead sees: the first three characters of the code
- * (a US sectional centre, a Canadian forward sortation area, a UK district), never all of it.
+ * (a US sectional center, a Canadian forward sortation area, a UK district), never all of it.
  */
 export function postalArea(postalCodeNormalised: string): string {
   return postalCodeNormalised.slice(0, 3);

@@ -40,7 +40,7 @@ interface StageRules {
 export const pipeline: Readonly<Record<HeldStage, StageRules>> = {
   claimed: { moves: ['in_touch', 'closed'], release: true },
   in_touch: { moves: ['site_walk_booked', 'closed'], release: true },
-  // A cancelled walk goes back to talking; the owner's answer can also end it here.
+  // A canceled walk goes back to talking; the owner's answer can also end it here.
   site_walk_booked: { moves: ['in_touch', 'closed'], release: true },
   report_sent: { moves: ['signed', 'closed'], release: false },
   signed: { moves: [], release: false },
@@ -61,7 +61,7 @@ export const stageText: Readonly<Record<AssessmentStatus, { label: string; hint:
   signed: { label: 'Work agreed', hint: 'The owner has agreed to the work.' },
   closed: { label: 'Closed', hint: 'Ended without work, for the reason given.' },
   unrouted: { label: 'No region', hint: 'No region covers its postal code; the admin routes it.' },
-  junk: { label: 'Set aside', hint: 'Marked as not a real enquiry.' },
+  junk: { label: 'Set aside', hint: 'Marked as not a real inquiry.' },
 };
 
 /** The verb on the button that makes a move, e.g. "Mark as talking". */

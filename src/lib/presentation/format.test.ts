@@ -119,15 +119,15 @@ describe('quantities in the reader’s units', () => {
   });
 
   it.each([
-    { system: 'US', metres: 0.0381, text: '1½~in' },
-    { system: 'US', metres: 0.0254, text: '1~in' },
-    { system: 'US', metres: 0.0127, text: '½~in' },
-    { system: 'US', metres: 0.0762, text: '3~in' },
-    { system: 'US', metres: 0.03, text: '1.18~in' },
-    { system: 'SI', metres: 0.04, text: '40~mm' },
-    { system: 'SI', metres: 0.0254, text: '25~mm' },
-  ] as const)('an insulation thickness in $system: $metres m → $text', ({ system, metres, text }) => {
-    expect(displayFormat({ system, currency: 'USD' }).thickness(metres)).toBe(nb(text));
+    { system: 'US', meters: 0.0381, text: '1½~in' },
+    { system: 'US', meters: 0.0254, text: '1~in' },
+    { system: 'US', meters: 0.0127, text: '½~in' },
+    { system: 'US', meters: 0.0762, text: '3~in' },
+    { system: 'US', meters: 0.03, text: '1.18~in' },
+    { system: 'SI', meters: 0.04, text: '40~mm' },
+    { system: 'SI', meters: 0.0254, text: '25~mm' },
+  ] as const)('an insulation thickness in $system: $meters m → $text', ({ system, meters, text }) => {
+    expect(displayFormat({ system, currency: 'USD' }).thickness(meters)).toBe(nb(text));
   });
 
   it.each([

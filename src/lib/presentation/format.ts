@@ -50,7 +50,7 @@ export interface DisplayFormat {
   quantityNumber(valueSI: number, quantity: DisplayQuantity, significant?: number): string;
   /**
    * An SI value converted, rounded and with its unit: "1,680 Btu/h per ft", "337 °F". More
-   * significant figures only for catalogue dimensions people match against ("2.375 in OD").
+   * significant figures only for catalog dimensions people match against ("2.375 in OD").
    */
   quantity(valueSI: number, quantity: DisplayQuantity, significant?: number): string;
   /** A range of an SI quantity: ends without the unit, the whole with it once. */
@@ -58,7 +58,7 @@ export interface DisplayFormat {
   /** A temperature in whole degrees: "337 °F", "−5 °C". */
   temperature(celsius: number, decimals?: number): string;
   /** An insulation thickness as the trade sells it: "1½ in", "40 mm". */
-  thickness(metres: number): string;
+  thickness(meters: number): string;
   /** Money in the plant's currency, whole units: "$4,230", "under $1". */
   money(value: number): string;
   moneyRange(low: number, high: number): FormattedRange;
@@ -109,15 +109,15 @@ export function displayFormat(options: DisplayOptions & { readonly currency?: st
       return rangeOf(writeNumber(low, step, locale), writeNumber(high, step, locale), displayUnit(q, system).symbol);
     },
     temperature,
-    thickness: (metres) => {
-      if (system === 'SI') return withUnit(writeNumber(shown(metres, 'thickness'), 1, locale), 'mm');
-      const inches = shown(metres, 'thickness');
+    thickness: (meters) => {
+      if (system === 'SI') return withUnit(writeNumber(shown(meters, 'thickness'), 1, locale), 'mm');
+      const inches = shown(meters, 'thickness');
       const eighths = Math.round(inches * 8);
       if (eighths > 0 && Math.abs(inches * 8 - eighths) < 0.05) {
         const whole = Math.floor(eighths / 8);
         return withUnit(`${whole === 0 ? '' : String(whole)}${FRACTION_GLYPHS[eighths % 8] ?? ''}`, 'in');
       }
-      return quantity(metres, 'thickness');
+      return quantity(meters, 'thickness');
     },
     money: (value) => moneyOf(write, value),
     moneyRange: (low, high) => moneyRangeOf(write, low, high),

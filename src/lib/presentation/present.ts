@@ -171,7 +171,7 @@ function noticeSentence(run: RunEstimate, notice: InputNotice, f: DisplayFormat)
     case 'MEASURED_BELOW_SATURATION':
       return `The bare steam line ${name} reads about ${temperature(given) ?? 'less'}, well under saturated steam at the stated pressure: the line may run only part of the time, hold condensate or have a wrong gauge, or a shiny surface may have misled an infrared reading.`;
     case 'MEASURED_CLOSE_TO_AIR':
-      return `${name}: the insulated surface reads too close to the air to judge the insulation’s condition from; the catalogue figure is kept.`;
+      return `${name}: the insulated surface reads too close to the air to judge the insulation’s condition from; the catalog figure is kept.`;
   }
 }
 

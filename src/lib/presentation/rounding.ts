@@ -133,7 +133,7 @@ export function formatTemperature(celsius: number, system: UnitSystem, decimals 
 
 /**
  * An SI value converted, rounded and with its unit: "1,680 Btu/h per ft", "337 °F". More
- * significant figures only for catalogue dimensions people match against ("2.375 in OD").
+ * significant figures only for catalog dimensions people match against ("2.375 in OD").
  */
 export function formatQuantity(
   valueSI: number,

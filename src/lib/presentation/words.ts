@@ -1,7 +1,7 @@
 /**
  * The words Lagwise shows for the engine's ids: services, insulation materials, covers
  * (jackets), the state a run is in, hazard flags and plant notes. Our own wording, in US
- * spelling, kept here once; the engine's catalogue names stay the engine's.
+ * spelling, kept here once; the engine's catalog names stay the engine's.
  *
  * Each table is typed by the engine's id union, so a new service, material or cover in the
  * engine fails the typecheck until it has its words here.
@@ -56,7 +56,7 @@ export const STATE_WORDS: Readonly<Record<RunEstimate['current']['state'], strin
   insulated: 'Insulated',
 };
 
-/** A hazard's short flag (always words, never colour alone) and its tone. */
+/** A hazard's short flag (always words, never color alone) and its tone. */
 export const HAZARD_FLAGS: Readonly<Record<RunWarningCode, { readonly flag: string; readonly tone: 'heat' | 'cold' | 'plain' }>> = {
   SURFACE_ABOVE_TOUCH_LIMIT: { flag: 'Burns on touch', tone: 'heat' },
   SURFACE_BELOW_DEW_POINT: { flag: 'Sweats: below the dew point', tone: 'cold' },

@@ -341,8 +341,8 @@ function assumptionsOf(source: ReportSource, f: DisplayFormat): PresentedReport[
     {
       title: 'Method',
       lines: [
-        'Heat flow per metre through the pipe wall and each insulation layer by the method for insulated cylinders of ASTM C680, each layer’s conductivity averaged over its own temperature span.',
-        'Outer surface: natural convection by Churchill & Chu (1975), wind and draughts by Churchill & Bernstein (1977), radiation by the Stefan–Boltzmann law with the emittances above.',
+        'Heat flow per meter through the pipe wall and each insulation layer by the method for insulated cylinders of ASTM C680, each layer’s conductivity averaged over its own temperature span.',
+        'Outer surface: natural convection by Churchill & Chu (1975), wind and drafts by Churchill & Bernstein (1977), radiation by the Stefan–Boltzmann law with the emittances above.',
         'Steam temperature from its pressure by IAPWS-IF97; dew point by the Magnus form (Alduchov & Eskridge, 1996); insulation thicknesses as made (ASTM C585).',
         'Touch limit from the burn thresholds of ASTM C1055; life-cycle cost as present worth with uniform escalation (NIST Handbook 135).',
         `Lagwise engine ${result.engineVersion}.`,

@@ -28,7 +28,7 @@ function iso(date: Date | null): string | null {
 }
 
 /** Summaries of a lead's reports, each saying whether a later version replaced it. */
-export function summarise(rows: readonly Report[]): ReportSummary[] {
+export function summarize(rows: readonly Report[]): ReportSummary[] {
   const versions = rows.filter((r) => r.status === 'sent' && r.version !== null);
   return rows.map((row) => {
     const next = row.version === null ? undefined : versions.filter((v) => (v.version as number) > (row.version as number)).sort((a, b) => (a.version as number) - (b.version as number))[0];
@@ -53,7 +53,7 @@ export async function listReportsFor(user: SessionUser, leadId: string | undefin
   const rows = (await listLeadReports(getDb(), found.lead.id)).filter((row) => mayRead(role, row));
   return {
     lead: { id: found.lead.id, reference: found.lead.reference, latestRevisionNumber: latestInventoryNumber(found.lead) },
-    reports: summarise(rows),
+    reports: summarize(rows),
     allowed: { compose: mayCompose(role, found.lead) },
   };
 }
@@ -110,7 +110,7 @@ export async function leadPhotoIds(leadId: string): Promise<Set<string>> {
 /** One report whole, as `role` may see it. */
 export async function reportView(found: LeadRecord, role: ReportRole, report: Report, viewer: SessionUser): Promise<ReportView> {
   const rows = await listLeadReports(getDb(), found.lead.id);
-  const summary = summarise(rows).find((s) => s.id === report.id);
+  const summary = summarize(rows).find((s) => s.id === report.id);
   if (!summary) throw new Error('a report is always among its lead’s reports');
   const lead = found.lead;
   const base = {

@@ -20,5 +20,5 @@ export const RETENTION = {
 /** When the retention sweep runs (cron, UTC): once a day, in the quiet of the night. */
 export const RETENTION_SWEEP_CRON = '41 3 * * *';
 
-/** What an anonymised assessment shows where a person's details were. */
+/** What an anonymized assessment shows where a person's details were. */
 export const REMOVED = '(removed)';

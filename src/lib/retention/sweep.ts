@@ -1,5 +1,5 @@
 /**
- * The daily retention sweep: removes or anonymises what the privacy page says goes, by the
+ * The daily retention sweep: removes or anonymizes what the privacy page says goes, by the
  * periods in ./policy.ts. Stored files are deleted before the rows that name them, so a failed
  * sweep leaves at worst a row whose file is gone (and the next sweep finishes it), never a file
  * nobody can find to delete.

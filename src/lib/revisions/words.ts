@@ -54,7 +54,7 @@ export const TOTAL_FIGURE_WORDS: Readonly<Record<TotalFigureChange['figure'], st
   runsWithHazards: 'Runs with a hazard',
 };
 
-/** A hazard's short flag: always words, never colour alone. */
+/** A hazard's short flag: always words, never color alone. */
 export const HAZARD_WORDS: Readonly<Record<RunWarningCode, string>> = {
   SURFACE_ABOVE_TOUCH_LIMIT: 'Burns on touch',
   SURFACE_BELOW_DEW_POINT: 'Sweats below the dew point',

@@ -71,9 +71,9 @@ describe('checkRegionPrefix', () => {
   it('every leading part of every example code is a valid prefix of its country', () => {
     for (const code of countryCodes) {
       for (const example of postalFormats[code].example.split(' or ')) {
-        const normalised = normalisePostalCode(code, example);
-        expect(normalised.ok, `${code} ${example}`).toBe(true);
-        const key = normalised.ok ? normalised.routingKey : '';
+        const normalized = normalisePostalCode(code, example);
+        expect(normalized.ok, `${code} ${example}`).toBe(true);
+        const key = normalized.ok ? normalized.routingKey : '';
         for (let n = 1; n <= key.length; n += 1) {
           expect(checkRegionPrefix(code, key.slice(0, n)).ok, `${code} ${key.slice(0, n)}`).toBe(true);
         }

@@ -2,7 +2,7 @@
  * A PDF can carry more than pages: JavaScript run on opening (OpenAction, additional actions),
  * launch actions that start programs, embedded files, forms that submit elsewhere. We keep the
  * pages and nothing else: the pages are copied (with pdf-lib) into a new, empty document —
- * which leaves the catalogue's actions, names tree (JavaScript, EmbeddedFiles) and forms behind —
+ * which leaves the catalog's actions, names tree (JavaScript, EmbeddedFiles) and forms behind —
  * and each page's annotations lose every action but a plain link.
  */
 import { PDFArray, PDFDict, PDFDocument, PDFName, type PDFObject, type PDFPage } from 'pdf-lib';

@@ -36,13 +36,13 @@ const BLUE: Rgb = [30, 30, 220];
 const GREEN: Rgb = [30, 200, 30];
 const WHITE: Rgb = [240, 240, 240];
 
-/** Four coloured quarters, so a rotation can be told from a mirror image. */
+/** Four colored quarters, so a rotation can be told from a mirror image. */
 function quarters(width: number, height: number, [tl, tr, bl, br]: [Rgb, Rgb, Rgb, Rgb]): sharp.Sharp {
   const pixels = Buffer.alloc(width * height * 3);
   for (let y = 0; y < height; y++) {
     for (let x = 0; x < width; x++) {
-      const colour = y < height / 2 ? (x < width / 2 ? tl : tr) : x < width / 2 ? bl : br;
-      pixels.set(colour, (y * width + x) * 3);
+      const color = y < height / 2 ? (x < width / 2 ? tl : tr) : x < width / 2 ? bl : br;
+      pixels.set(color, (y * width + x) * 3);
     }
   }
   return sharp(pixels, { raw: { width, height, channels: 3 } });
@@ -54,7 +54,7 @@ async function pixelAt(image: Buffer, x: number, y: number): Promise<Rgb> {
   return [data[i] ?? -1, data[i + 1] ?? -1, data[i + 2] ?? -1];
 }
 
-/** Lossy encoding moves colours a little; a swapped or mirrored quarter moves them a lot. */
+/** Lossy encoding moves colors a little; a swapped or mirrored quarter moves them a lot. */
 function expectColour(actual: Rgb, expected: Rgb): void {
   actual.forEach((value, channel) => expect(Math.abs(value - (expected[channel] ?? 0))).toBeLessThan(40));
 }

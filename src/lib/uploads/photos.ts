@@ -151,7 +151,7 @@ function megapixels(pixels: number): string {
  * Checks one uploaded file and returns what may be stored: JPEG, PNG and WebP re-encoded in
  * their own format, HEIC/HEIF re-encoded as JPEG, a PDF rewritten with its pages only (no scripts or attachments). Images are turned upright
  * from their EXIF orientation, shrunk to at most {@link MAX_PHOTO_SIDE_PX} on the long side and
- * written without any metadata (EXIF with GPS, XMP, IPTC, ICC; colours converted to sRGB).
+ * written without any metadata (EXIF with GPS, XMP, IPTC, ICC; colors converted to sRGB).
  * Never throws for anything in the file; a refusal carries a sentence naming the file.
  */
 export async function cleanPhoto(bytes: Uint8Array, originalName?: string): Promise<CleanPhotoResult> {

@@ -320,7 +320,7 @@ export function RunEditor(props: RunEditorProps) {
               system={system}
               value={room?.average?.airSpeedMPerS}
               onChange={(v) => onChange((d) => setRoom(d, run.id, 'average.airSpeedMPerS', v))}
-              hint="Still air is 0; a draught you can feel is about 1 m/s (2 mph)."
+              hint="Still air is 0; a draft you can feel is about 1 m/s (2 mph)."
               error={problems['room.average.airSpeedMPerS']}
             />
             {room ? (
@@ -386,7 +386,7 @@ export function RunEditor(props: RunEditorProps) {
                 <p key={notice.code} className="walk-notice">
                   {notice.code === 'MEASURED_BELOW_SATURATION' && notice.params?.givenSI !== undefined && notice.params.limitSI !== undefined
                     ? `Check this reading: it puts the line at about ${formatQuantity(notice.params.givenSI, 'temperature', system)}, more than ${temperatureDifference(5, system)} under saturated steam at the stated pressure. The line may run only part of the time or hold condensate, the gauge may be wrong, or a shiny surface may have fooled an infrared reading.`
-                    : `The lagged surface reads within ${temperatureDifference(10, system)} of the air, too close to judge the lagging by; its catalogue figure is kept.`}
+                    : `The lagged surface reads within ${temperatureDifference(10, system)} of the air, too close to judge the lagging by; its catalog figure is kept.`}
                 </p>
               ))}
           </fieldset>

@@ -12,7 +12,7 @@ import type { RangeIssueParams } from '../../../engine';
 /** One run's figures, as the form shows them. */
 export interface RunFigures {
   readonly cold: boolean;
-  /** Signed per metre: positive out of the line. */
+  /** Signed per meter: positive out of the line. */
   readonly heatLossWPerM: number;
   readonly annualCost: number;
   readonly annualSaving: number;

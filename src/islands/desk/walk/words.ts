@@ -1,5 +1,5 @@
 /**
- * The site-walk form's words for the engine's choices and for its own problems: catalogue
+ * The site-walk form's words for the engine's choices and for its own problems: catalog
  * names as a consultant says them on site, and range problems said again in the reader's own
  * units with the field's own label.
  */
