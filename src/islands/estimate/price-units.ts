@@ -9,6 +9,6 @@ export const PRICE_UNIT_NAMES: Record<FuelPriceUnit, string> = {
   kWh: 'kWh',
   m3: 'cubic meter (m³)',
   gallon: 'US gallon',
-  litre: 'litre',
+  litre: 'liter',
   kg: 'kg',
 };
