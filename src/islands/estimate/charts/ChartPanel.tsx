@@ -49,7 +49,7 @@ export function ChartPanel({ id, title, reading, spec, controls }: Props) {
             <caption className="sr-only">{spec.name}</caption>
             <thead>
               <tr>
-                <th scope="col">{spec.xTitle}</th>
+                <th scope="col">{spec.rowTitle ?? spec.xTitle}</th>
                 {spec.series.map((s) => (
                   <th key={s.label} scope="col">
                     {s.label}
