@@ -222,6 +222,8 @@ export const reportResponseSchema = z.object({
     /** Photos of the lead the composer can choose from (drafts only). */
     photoChoices: z.array(photoSchema).nullable(),
     pdfUrl: z.string().nullable(),
+    /** The PDF was made and later deleted with the owner's details (the retention period); the figures stay. */
+    pdfRemoved: z.boolean(),
     allowed: z.object({ edit: z.boolean(), send: z.boolean(), answer: z.boolean() }),
   }),
 });

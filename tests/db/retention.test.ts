@@ -1,18 +1,19 @@
 /**
  * The privacy page's promises, kept: the retention sweep (a daily pg-boss schedule) deletes old
- * junk, takes the person off assessments inactive past the period, deletes their files and the
- * account no assessment names any more — and leaves recent assessments alone. Real rows, made
- * through the API, aged in the database.
+ * junk, takes the person off assessments inactive past the period, deletes their files (photos,
+ * PDFs and the PDFs of reports sent to them) and the account no assessment names any more — and
+ * leaves recent assessments alone. Real rows, made through the API, aged in the database.
  */
 import { eq, inArray, sql } from 'drizzle-orm';
 import pg from 'pg';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '../../src/db/client';
-import { assessments, attachments, user } from '../../src/db/schema';
+import { assessments, attachments, reports, user } from '../../src/db/schema';
 import { jobNames } from '../../src/lib/jobs/names';
 import { REMOVED, RETENTION, RETENTION_SWEEP_CRON } from '../../src/lib/retention/policy';
 import { monthsBefore, sweepRetention } from '../../src/lib/retention/sweep';
-import { getObject } from '../../src/lib/storage/objects';
+import { renderAndStoreReportPdf } from '../../src/lib/reports/pdf-job';
+import { getObject, putObject } from '../../src/lib/storage/objects';
 import { ensureTestRegion, submissionForm, validSubmission } from '../support/fixtures';
 import { appFetch, stack } from '../support/stack';
 
@@ -44,6 +45,8 @@ describe('the retention sweep', () => {
   const ids = { oldJunk: '', newJunk: '', inactive: '', active: '' };
   let inactiveOwnerEmail = '';
   let photoKey = '';
+  let reportPdfKey = '';
+  let reportId = '';
 
   beforeAll(async () => {
     await ensureTestRegion();
@@ -57,6 +60,14 @@ describe('the retention sweep', () => {
     ids.newJunk = await submit({ ...validSubmission(), website: 'https://spam.example' });
     const [file] = await getDb().select({ key: attachments.objectKey }).from(attachments).where(eq(attachments.assessmentId, ids.inactive));
     photoKey = file!.key;
+    // A report sent to the inactive owner, its PDF stored as the worker stores one.
+    reportPdfKey = `reports/${ids.inactive}/retention-check-v1.pdf`;
+    await putObject(reportPdfKey, new TextEncoder().encode('%PDF-1.7 Report for Petra Lindqvist, Quarry Hill Dairy'), 'application/pdf');
+    const [report] = await getDb()
+      .insert(reports)
+      .values({ assessmentId: ids.inactive, status: 'sent', version: 1, baseRevisionNumber: 0, composition: {}, sentAt: new Date(), pdfObjectKey: reportPdfKey, pdfByteSize: 55, pdfRenderedAt: new Date() })
+      .returning({ id: reports.id });
+    reportId = report!.id;
     await age(ids.inactive, daysAgo(monthsBefore(now, RETENTION.inactiveMonths)) + 2);
     await age(ids.active, daysAgo(monthsBefore(now, RETENTION.inactiveMonths)) - 2);
     await age(ids.oldJunk, RETENTION.junkDays + 1);
@@ -94,11 +105,22 @@ describe('the retention sweep', () => {
     });
     expect(await getDb().select().from(attachments).where(eq(attachments.assessmentId, ids.inactive))).toEqual([]);
     expect(await getObject(photoKey)).toBeNull();
+    expect(await getObject(reportPdfKey)).toBeNull();
+    const [report] = await getDb().select({ key: reports.pdfObjectKey, renderedAt: reports.pdfRenderedAt, version: reports.version }).from(reports).where(eq(reports.id, reportId));
+    expect(report?.key).toBeNull();
+    expect(report?.version).toBe(1);
+    expect(report?.renderedAt).toBeInstanceOf(Date);
     expect(await getDb().select({ id: user.id }).from(user).where(eq(user.email, inactiveOwnerEmail))).toEqual([]);
 
     const active = byId.get(ids.active);
     expect(active?.contactName).toBe('Petra Lindqvist');
     expect(active?.ownerUserId).not.toBeNull();
+  });
+
+  it("a sent report's deleted PDF is not made again by a render job (it would name the owner again)", async () => {
+    await renderAndStoreReportPdf(reportId);
+    const [report] = await getDb().select({ key: reports.pdfObjectKey }).from(reports).where(eq(reports.id, reportId));
+    expect(report?.key).toBeNull();
   });
 
   it('a second sweep finds nothing more to do with these rows', async () => {

@@ -1,26 +1,38 @@
 import { and, eq, inArray, isNotNull, lt, ne, notExists, sql } from 'drizzle-orm';
 import type { Executor } from '../client';
 import { session, user, verification } from '../auth-schema';
-import { assessments, attachments } from '../schema';
+import { assessments, attachments, reports } from '../schema';
 
 /** Junk submissions made before `before`, with their stored files. */
 export async function findOldJunk(db: Executor, before: Date): Promise<{ id: string; objectKeys: string[] }[]> {
   const rows = await db
-    .select({ id: assessments.id, objectKey: attachments.objectKey })
+    .select({ id: assessments.id })
     .from(assessments)
-    .leftJoin(attachments, eq(attachments.assessmentId, assessments.id))
     .where(and(eq(assessments.status, 'junk'), lt(assessments.createdAt, before)));
-  return groupKeys(rows);
+  return withStoredFiles(db, rows.map((row) => row.id));
 }
 
 /** Assessments still naming a person whose last activity was before `before`, with their stored files. */
 export async function findInactiveNamed(db: Executor, before: Date, removed: string): Promise<{ id: string; objectKeys: string[] }[]> {
   const rows = await db
-    .select({ id: assessments.id, objectKey: attachments.objectKey })
+    .select({ id: assessments.id })
     .from(assessments)
-    .leftJoin(attachments, eq(attachments.assessmentId, assessments.id))
     .where(and(ne(assessments.status, 'junk'), lt(assessments.updatedAt, before), ne(assessments.contactName, removed)));
-  return groupKeys(rows);
+  return withStoredFiles(db, rows.map((row) => row.id));
+}
+
+/** Each assessment with the object keys of what it stored: its photos and PDFs, and its reports' PDFs. */
+async function withStoredFiles(db: Executor, ids: readonly string[]): Promise<{ id: string; objectKeys: string[] }[]> {
+  if (ids.length === 0) return [];
+  const uploads = await db
+    .select({ id: attachments.assessmentId, objectKey: attachments.objectKey })
+    .from(attachments)
+    .where(inArray(attachments.assessmentId, [...ids]));
+  const reportPdfs = await db
+    .select({ id: reports.assessmentId, objectKey: reports.pdfObjectKey })
+    .from(reports)
+    .where(and(inArray(reports.assessmentId, [...ids]), isNotNull(reports.pdfObjectKey)));
+  return groupKeys([...ids.map((id) => ({ id, objectKey: null })), ...uploads, ...reportPdfs]);
 }
 
 function groupKeys(rows: { id: string; objectKey: string | null }[]): { id: string; objectKeys: string[] }[] {
@@ -41,12 +53,18 @@ export async function deleteAssessments(db: Executor, ids: readonly string[]): P
 
 /**
  * Takes what identifies a person off assessments: contact details and plant name replaced,
- * the owner's account unlinked, file rows removed (their objects are deleted by the caller).
+ * the owner's account unlinked, file rows removed and the reports' PDFs (which name the owner
+ * and the plant) let go of — their objects are deleted by the caller. The reports' figures stay,
+ * and `pdfRenderedAt` with them: a sent report with that time and no key had its PDF removed.
  * `updatedAt` is kept, so the sweep's own change does not count as activity.
  */
 export async function anonymiseAssessments(db: Executor, ids: readonly string[], removed: string): Promise<number> {
   if (ids.length === 0) return 0;
   await db.delete(attachments).where(inArray(attachments.assessmentId, [...ids]));
+  await db
+    .update(reports)
+    .set({ pdfObjectKey: null, pdfByteSize: null })
+    .where(and(inArray(reports.assessmentId, [...ids]), isNotNull(reports.pdfObjectKey)));
   const changed = await db
     .update(assessments)
     .set({

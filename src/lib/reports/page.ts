@@ -6,6 +6,7 @@ import type { ReportView } from '../../schemas/reports';
 import { DomainError } from '../errors';
 import type { SessionUser } from '../session';
 import { presentReport, type PresentedReport } from './present';
+import { RETENTION } from '../retention/policy';
 import { getReportFor } from './read';
 import { viewSource } from './source';
 
@@ -27,3 +28,10 @@ export async function reportPageFor(user: SessionUser, reportId: string | undefi
 
 /** What a page says while a sent version's PDF is still being made. */
 export const PDF_PENDING_NOTE = 'The PDF is being prepared; reload the page in a few seconds to download it.';
+
+/** What a page says where the PDF should be: being made, or deleted after the retention period. */
+export function pdfNoteFor(view: Pick<ReportView, 'pdfRemoved'>): string {
+  return view.pdfRemoved
+    ? `The PDF was deleted with the owner's details ${RETENTION.inactiveMonths} months after the assessment's last change, as the privacy page says; the figures are all here.`
+    : PDF_PENDING_NOTE;
+}

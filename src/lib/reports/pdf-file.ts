@@ -8,6 +8,7 @@ import { DomainError } from '../errors';
 import type { SessionUser } from '../session';
 import { getObject } from '../storage/objects';
 import { reachReport } from './access';
+import { RETENTION } from '../retention/policy';
 
 /** Where a version's PDF is stored: one object per version, never overwritten with other figures. */
 export function reportPdfKey(report: Pick<Report, 'assessmentId' | 'id' | 'version'>): string {
@@ -22,6 +23,9 @@ export function reportPdfFileName(reference: string, version: number | null): st
 export async function reportPdfFor(user: SessionUser, reportId: string | undefined): Promise<{ bytes: Uint8Array; fileName: string }> {
   const { found, report } = await reachReport(user, reportId);
   if (report.status !== 'sent') throw new DomainError('CONFLICT', 'A draft has no PDF; the PDF is made when the report is sent.');
+  if (!report.pdfObjectKey && report.pdfRenderedAt) {
+    throw new DomainError('GONE', `The PDF of this version was deleted with the owner's details, ${RETENTION.inactiveMonths} months after the assessment's last change (see the privacy page); the report's figures are still on this page.`);
+  }
   if (!report.pdfObjectKey) {
     throw new DomainError('SERVICE_UNAVAILABLE', 'The PDF of this version is still being prepared; try again in a few seconds.', undefined, { retryAfterSeconds: 5 });
   }

@@ -40,7 +40,8 @@ async function photosFor(leadId: string, ids: readonly string[], labels: Readonl
 export async function renderAndStoreReportPdf(reportId: string): Promise<void> {
   const report = await findReport(getDb(), reportId);
   if (!report || report.status !== 'sent') throw new NoReportToRender(`report ${reportId} is not a sent version`);
-  if (report.pdfObjectKey) return;
+  // Made already — or made and deleted after the retention period, which must not bring it back.
+  if (report.pdfObjectKey || report.pdfRenderedAt) return;
   const found = await findLead(getDb(), report.assessmentId, undefined);
   if (!found) throw new NoReportToRender(`the lead of report ${reportId} no longer exists`);
   const source = frozenSource(report, found.lead, null);

@@ -132,6 +132,7 @@ export async function reportView(found: LeadRecord, role: ReportRole, report: Re
       photos: await photoLinks(lead.id, compositionOf(report).photoIds),
       photoChoices: null,
       pdfUrl: report.pdfObjectKey ? `/api/reports/${report.id}/pdf` : null,
+      pdfRemoved: !report.pdfObjectKey && report.pdfRenderedAt !== null,
       allowed: { edit: false, send: false, answer: role === 'owner' && report.version === latest && report.answer === null && lead.status === 'report_sent' },
     };
   }
@@ -149,6 +150,7 @@ export async function reportView(found: LeadRecord, role: ReportRole, report: Re
     photos: await photoLinks(lead.id, composition.photoIds),
     photoChoices: await photoLinks(lead.id, null),
     pdfUrl: null,
+    pdfRemoved: false,
     allowed: { edit: mayCompose(role, lead), send: mayCompose(role, lead), answer: false },
   };
 }
