@@ -7,7 +7,7 @@ export const RETENTION = {
   junkDays: 30,
   /**
    * An assessment with no activity for this many months loses what identifies a person: the
-   * contact's name, e-mail, phone, company and plant name, the photos and PDFs, and the link to
+   * contact's name, e-mail, phone, company and plant name, the photos and PDFs (the reports' PDFs too), and the link to
    * the owner's account. The plant's figures stay, with nobody's name on them.
    */
   inactiveMonths: 24,
