@@ -32,7 +32,6 @@ import {
 import { StepList } from './StepList';
 import { UnitSwitch } from './UnitSwitch';
 import { PlantStep } from './PlantStep';
-import { ErrorSummary } from './ErrorSummary';
 import { errorMessageAt, inPageOrder, type Name } from './fields';
 
 /** The results view is the largest step; it loads once the runs step opens, before anyone needs it. */
@@ -42,7 +41,10 @@ const ResultsStep = lazy(() => loadResultsStep().then((module) => ({ default: mo
 const loadRunsStep = () => import('./RunsStep');
 const RunsStep = lazy(() => loadRunsStep().then((module) => ({ default: module.RunsStep })));
 /** The later steps, the figures strip and the confirmation load with the runs step: the plant step is all a first visit needs. */
-const loadLaterSteps = () => Promise.all([import('./EnergyStep'), import('./ContactStep'), import('./Confirmation'), import('./SummaryStrip')]);
+const loadLaterSteps = () =>
+  Promise.all([import('./EnergyStep'), import('./ContactStep'), import('./Confirmation'), import('./SummaryStrip'), import('./ErrorSummary')]);
+/** The list of what needs a look: nothing does before the first check, so it comes with the later steps. */
+const ErrorSummary = lazy(() => import('./ErrorSummary').then((module) => ({ default: module.ErrorSummary })));
 const EnergyStep = lazy(() => import('./EnergyStep').then((module) => ({ default: module.EnergyStep })));
 const ContactStep = lazy(() => import('./ContactStep').then((module) => ({ default: module.ContactStep })));
 const SummaryStrip = lazy(() => import('./SummaryStrip').then((module) => ({ default: module.SummaryStrip })));
@@ -268,7 +270,9 @@ function Wizard({ cautions }: Props) {
             </h2>
           </div>
 
-          <ErrorSummary step={step} notice={notice} failure={submission.state === 'failed' ? submission.failure : null} />
+          <Suspense fallback={null}>
+            <ErrorSummary step={step} notice={notice} failure={submission.state === 'failed' ? submission.failure : null} />
+          </Suspense>
 
           {step === 'plant' && <PlantStep />}
           {step === 'energy' && (
