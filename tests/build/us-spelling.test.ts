@@ -130,8 +130,9 @@ const WORD = new RegExp(`(?<![A-Za-z0-9_\\-/.])(${Object.keys(US_FORM).join('|')
 function sourceFiles(dir: string): string[] {
   return readdirSync(dir, { withFileTypes: true }).flatMap((entry) => {
     const full = path.join(dir, entry.name);
-    if (entry.isDirectory()) return sourceFiles(full);
-    return /\.(ts|tsx|astro|mdx?)$/.test(entry.name) ? [full] : [];
+    // Tests are not read by anyone using the product, and some name the British forms to forbid them.
+    if (entry.isDirectory()) return entry.name === '__tests__' ? [] : sourceFiles(full);
+    return /\.(ts|tsx|astro|mdx?)$/.test(entry.name) && !/\.test\.tsx?$/.test(entry.name) ? [full] : [];
   });
 }
 

@@ -8,6 +8,7 @@ import { eq, inArray, sql } from 'drizzle-orm';
 import pg from 'pg';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '../../src/db/client';
+import { ENGINE_VERSION } from '../../src/engine';
 import { assessments, attachments, reports, user } from '../../src/db/schema';
 import { jobNames } from '../../src/lib/jobs/names';
 import { REMOVED, RETENTION, RETENTION_SWEEP_CRON } from '../../src/lib/retention/policy';
@@ -65,7 +66,20 @@ describe('the retention sweep', () => {
     await putObject(reportPdfKey, new TextEncoder().encode('%PDF-1.7 Report for Petra Lindqvist, Quarry Hill Dairy'), 'application/pdf');
     const [report] = await getDb()
       .insert(reports)
-      .values({ assessmentId: ids.inactive, status: 'sent', version: 1, baseRevisionNumber: 0, composition: {}, sentAt: new Date(), pdfObjectKey: reportPdfKey, pdfByteSize: 55, pdfRenderedAt: new Date() })
+      .values({
+        assessmentId: ids.inactive,
+        status: 'sent',
+        version: 1,
+        baseRevisionNumber: 0,
+        composition: {},
+        plantInput: inactive.estimate,
+        resultSnapshot: {},
+        engineVersion: ENGINE_VERSION,
+        sentAt: new Date(),
+        pdfObjectKey: reportPdfKey,
+        pdfByteSize: 55,
+        pdfRenderedAt: new Date(),
+      })
       .returning({ id: reports.id });
     reportId = report!.id;
     await age(ids.inactive, daysAgo(monthsBefore(now, RETENTION.inactiveMonths)) + 2);

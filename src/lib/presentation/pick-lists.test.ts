@@ -32,6 +32,6 @@ describe('pick-lists', () => {
       .flatMap((c) => [c.label, c.note ?? ''])
       .concat(JACKET_GROUPS.map((g) => g.label))
       .join(' | ');
-    expect(words).not.toMatch(/aluminium|color|galvanis|gray|fiber|draft|vapor/i);
+    expect(words).not.toMatch(/aluminium|colour|galvanis|grey|fibre|draught|vapour/i);
   });
 });
