@@ -41,7 +41,7 @@ function fallbackMessage(status: number): string {
 /** The answer schemas, imported with the first answer rather than with the page. */
 const answers = () => import('../schemas/answers');
 
-const NO_ANSWER: ApiFailure = {
+export const NO_ANSWER: ApiFailure = {
   ok: false,
   status: 0,
   code: 'NETWORK',

@@ -6,7 +6,8 @@
 import { describe, expect, it } from 'vitest';
 import { AREA_PRESETS, estimatePlant } from '../../engine';
 import { NOTHING_TYPED, withConfidences } from './confidence';
-import { freshValues, newArea, toPlantInput, type DraftValues } from './draft';
+import { freshValues, newArea, type DraftValues } from './draft';
+import { toPlantInput } from './posting';
 
 const EVERYTHING_TYPED = () => true;
 

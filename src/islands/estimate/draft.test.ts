@@ -5,7 +5,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { plantInputSchema } from '../../engine';
-import { freshValues, migrateDraft, newArea, toPlantInput, type DraftValues } from './draft';
+import { freshValues, migrateDraft, newArea, type DraftValues } from './draft';
+import { toPlantInput } from './posting';
 
 /** A draft as the form kept it before areas and fittings by kind: counts on the run, one "lagged too" tick. */
 function olderDraft(): Partial<DraftValues> {

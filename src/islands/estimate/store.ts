@@ -5,7 +5,7 @@
  */
 import { atom, map } from 'nanostores';
 import { persistentAtom, persistentMap } from '@nanostores/persistent';
-import { requestEstimate, submitAssessment, type ApiFailure, type SubmittedAssessment } from '../../lib/api-client';
+import { NO_ANSWER, requestEstimate, submitAssessment, type ApiFailure, type SubmittedAssessment } from '../../lib/api-client';
 import type { PlantInput, PlantResult } from '../../engine';
 import { MAX_PHOTO_BYTES, MAX_PHOTOS, PHOTO_FIELD } from '../../schemas/assessment-lists';
 import {
@@ -13,7 +13,6 @@ import {
   isStepId,
   migrateDraft,
   newIdempotencyKey,
-  toAssessmentInput,
   type DraftValues,
   type StepId,
 } from './draft';
@@ -261,8 +260,17 @@ export async function sendAssessment(values: DraftValues): Promise<Submission> {
   const now = $submission.get();
   if (now.state === 'sending') return now;
   $submission.set({ state: 'sending' });
+  let posting: typeof import('./posting');
+  try {
+    posting = await import('./posting');
+  } catch {
+    // The code that writes the body could not be fetched: as good as no answer.
+    const failed: Submission = { state: 'failed', failure: NO_ANSWER };
+    $submission.set(failed);
+    return failed;
+  }
   const form = new FormData();
-  form.append('assessment', JSON.stringify(toAssessmentInput(values, wasTyped)));
+  form.append('assessment', JSON.stringify(posting.toAssessmentInput(values, wasTyped)));
   const runIds = new Set(values.estimate.runs.map((run) => run.id));
   for (const [runId, files] of Object.entries($photos.get())) {
     if (!runIds.has(runId)) continue;

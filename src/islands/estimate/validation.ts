@@ -9,7 +9,8 @@ import { plantInputSchema, type PlantInput, type RangeIssueParams } from '../../
 import type { FieldContext } from '../../lib/form-fields';
 import { fieldMessage } from '../../lib/field-messages';
 import { createAssessmentSchema } from '../../schemas/assessment';
-import { stepOfPath, toPlantInput, type StepId } from './draft';
+import { stepOfPath, type StepId } from './draft';
+import { toPlantInput } from './posting';
 import { NOTHING_TYPED, type WasTyped } from './confidence';
 import { fieldContextOf } from './resolver';
 
