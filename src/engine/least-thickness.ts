@@ -1,4 +1,4 @@
-import { solveLean, type ResolvedRun } from './run-solver';
+import { solveLean, startAtOtherAir, type ResolvedRun } from './run-solver';
 
 /** One stock thickness tried: its heat flow and surface at average air, and at design air where a need applies. */
 export interface SeriesPoint {
@@ -28,6 +28,8 @@ export interface SeriesWalk {
    * no solve.
    */
   readonly lifeCycleCost?: (thicknessM: number, heatLossWPerM: number) => number;
+  /** Where the first thickness's solve starts, when something close is known (the lagging in place, say). */
+  readonly firstGuessC?: number;
 }
 
 /**
@@ -53,12 +55,12 @@ function onwardGuess(points: readonly SeriesPoint[], thicknessM: number, lastSur
 export function walkStockSeries(walk: SeriesWalk): SeriesPoint[] {
   const points: SeriesPoint[] = [];
   let guess: number | undefined;
-  let designGuess: number | undefined;
   let met = false;
   let best = Number.POSITIVE_INFINITY;
   let rises = 0;
   for (const t of walk.thicknessesM) {
-    const avg = solveLean(walk.runAt(t), guess === undefined ? undefined : onwardGuess(points, t, guess));
+    const avgRun = walk.runAt(t);
+    const avg = solveLean(avgRun, guess === undefined ? walk.firstGuessC : onwardGuess(points, t, guess));
     const wPerM = avg.heatLossWPerM;
     const surfaceC = avg.surfaceTemperatureC;
     guess = surfaceC;
@@ -67,8 +69,8 @@ export function walkStockSeries(walk: SeriesWalk): SeriesPoint[] {
     if (walk.designRunAt) {
       if (met) meets = true;
       else {
-        designC = solveLean(walk.designRunAt(t), designGuess).surfaceTemperatureC;
-        designGuess = designC;
+        const designRun = walk.designRunAt(t);
+        designC = solveLean(designRun, startAtOtherAir(surfaceC, avgRun.fluidTemperatureC, avgRun.ambientTemperatureC, designRun.ambientTemperatureC)).surfaceTemperatureC;
         meets = walk.meets(designC);
       }
     } else {

@@ -34,7 +34,7 @@ import {
   type SolvedState,
   type WeighedOption,
 } from './run-options';
-import { solveLean, solveResolvedRun, type CoreSolution, type ResolvedLayer, type ResolvedRun } from './run-solver';
+import { solveLean, solveResolvedRun, startAtOtherAir, type CoreSolution, type ResolvedLayer, type ResolvedRun } from './run-solver';
 import { serviceDefaults, type ServiceDefaults } from './services';
 import { CONFIDENCE_SPREADS, type Confidence } from './uncertainty';
 
@@ -192,7 +192,7 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   const bareLean = bareFull ?? solveLean(base);
   const bareAvg: SolvedState = { wPerM: bareLean.heatLossWPerM, surfaceC: bareLean.surfaceTemperatureC };
   const bareLatentWPerM = bareLean.latentGainWPerM;
-  const bareDesign = designAir ? lean(withAir(base, designAir, [], bareEmittance)) : bareAvg;
+  const bareDesign = designAir ? lean(withAir(base, designAir, [], bareEmittance), startAtOtherAir(bareAvg.surfaceC, base.fluidTemperatureC, base.ambientTemperatureC, designAir.temperatureC)) : bareAvg;
 
   const fittings = fittingsOf(run, base.pipeOuterDiameterM);
   const { bareEqL: fitBareEqL, eqL: fitEqL, uncoveredCount } = fittings;
@@ -223,7 +223,7 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
     currentInsFull = ctx.detail === 'full' ? solveResolvedRun(currentInsRun) : null;
     const solved = currentInsFull ? { wPerM: currentInsFull.heatLossWPerM, surfaceC: currentInsFull.surfaceTemperatureC } : lean(currentInsRun);
     currentIns = { wPerM: solved.wPerM * conditionFactor, surfaceC: solved.surfaceC };
-    currentInsDesign = designAir ? lean(withAir(base, designAir, layers, emittance)) : currentIns;
+    currentInsDesign = designAir ? lean(withAir(base, designAir, layers, emittance), startAtOtherAir(solved.surfaceC, base.fluidTemperatureC, base.ambientTemperatureC, designAir.temperatureC)) : currentIns;
   }
   const basisWithoutToday = {
     cold,
@@ -280,7 +280,7 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   const avgRun: MutableRun = { ...base, layers: [], surfaceEmittance: jacketEmittance };
   const designRun: MutableRun | null = designAir ? { ...withAir(base, designAir, [], jacketEmittance) } : null;
   const series: SeriesWalkBasis = { basis, material, thicknesses, avgRun, designRun, actual, costed };
-  const newSeries = walkSeries(series, [], 0, 1);
+  const newSeries = walkSeries(series, [], 0, 1, undefined);
 
   // Adding a layer over what is there (insulated or damaged runs).
   let addSeries: SeriesEntry[] = [];
@@ -288,7 +288,8 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
   if (existing) {
     repairPrice = pricePerMetre(basis, existing.material, existing.thicknessM);
     const repairPerMetre = bareFraction > 0 ? bareFraction * installedCostPerMetre(ctx.table, base.pipeOuterDiameterM, existing.thicknessM) * existing.material.installedCostFactor : 0;
-    addSeries = walkSeries(series, existing.layers, repairPerMetre, conditionFactor);
+    // The first added layer starts from the surface of the lagging in place.
+    addSeries = walkSeries(series, existing.layers, repairPerMetre, conditionFactor, currentIns?.surfaceC);
   }
 
   // Options.
@@ -345,12 +346,15 @@ export function estimateRun(run: ParsedPlantRun, ctx: PlantContext): RunOutcome 
           ? [...existing.layers, { thicknessM: chosen.thicknessM as number, curve: material.conductivity }]
           : [{ thicknessM: actual(chosen.thicknessM as number), curve: material.conductivity }];
     const emittance = chosen.kind === 'repair' && existing ? existing.emittance : jacketEmittance;
+    // The same run was solved for the options already: its surface is the start.
+    const startC =
+      chosen.kind === 'repair' ? currentIns?.surfaceC : (chosen.kind === 'add-layer' ? addSeries : newSeries).find((e) => e.t === chosen.thicknessM)?.avg.surfaceC;
     if (ctx.detail === 'full') {
-      const full = solveResolvedRun({ ...base, layers, surfaceEmittance: emittance });
+      const full = solveResolvedRun({ ...base, layers, surfaceEmittance: emittance }, startC);
       proposedSurfaceC = full.surfaceTemperatureC;
       proposedProfile = faceProfile(full);
     } else {
-      proposedSurfaceC = lean({ ...base, layers, surfaceEmittance: emittance }).surfaceC;
+      proposedSurfaceC = lean({ ...base, layers, surfaceEmittance: emittance }, startC).surfaceC;
     }
   }
 
@@ -534,7 +538,7 @@ interface SeriesWalkBasis {
  * The proposed material's stock series on the bare pipe (no layers `under`), or added over the
  * lagging in place, with each loss scaled by `factor` (the condition of what is there).
  */
-function walkSeries(w: SeriesWalkBasis, under: readonly ResolvedLayer[], extraPerMetre: number, factor: number): SeriesEntry[] {
+function walkSeries(w: SeriesWalkBasis, under: readonly ResolvedLayer[], extraPerMetre: number, factor: number, firstGuessC: number | undefined): SeriesEntry[] {
   const { basis, avgRun, designRun } = w;
   const layer: MutableLayer = { thicknessM: 0, curve: w.material.conductivity };
   const layers: ResolvedLayer[] = [...under, layer];
@@ -555,6 +559,7 @@ function walkSeries(w: SeriesWalkBasis, under: readonly ResolvedLayer[], extraPe
         }
       : null,
     meets: (surfaceC) => meetsNeed(basis, surfaceC),
+    ...(firstGuessC !== undefined ? { firstGuessC } : {}),
     ...(w.costed
       ? {
           lifeCycleCost: (t: number, wPerM: number) =>

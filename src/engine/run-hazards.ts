@@ -18,24 +18,28 @@ export interface HazardFacts {
   readonly uncoveredCount: number;
 }
 
+/** The wettest hour's dew point as a message gives it. */
+function dewPointWords(f: HazardFacts): string {
+  return formatNumber(Math.round(f.wetDewPointC * 10) / 10);
+}
+
 /** The hazards of a run as it stands: burns on hot surfaces, sweating on cold ones, bare fittings too. */
 export function hazardsToday(f: HazardFacts): RunWarning[] {
   const hazards: RunWarning[] = [];
-  const dew = formatNumber(Math.round(f.wetDewPointC * 10) / 10);
   if (f.bareFraction === 0 && f.insulatedDesignC !== null) {
     const surfaceC = f.insulatedDesignC;
     if (f.burnNeed && surfaceC > f.touchLimitC) {
       hazards.push({ code: 'SURFACE_ABOVE_TOUCH_LIMIT', message: `On the hottest day the insulated surface reaches about ${Math.round(surfaceC)} °C, above the ${f.touchLimitC} °C touch limit (ASTM C1055 basis): it can burn on contact.` });
     }
     if (f.sweatNeed && surfaceC < f.wetDewPointC) {
-      hazards.push({ code: 'SURFACE_BELOW_DEW_POINT', message: `In the wettest hour the insulated surface falls to about ${formatNumber(Math.round(surfaceC * 10) / 10)} °C, below the ${dew} °C dew point: it will sweat.` });
+      hazards.push({ code: 'SURFACE_BELOW_DEW_POINT', message: `In the wettest hour the insulated surface falls to about ${formatNumber(Math.round(surfaceC * 10) / 10)} °C, below the ${dewPointWords(f)} °C dew point: it will sweat.` });
     }
   } else if (f.bareFraction > 0) {
     if (f.burnNeed && f.bareDesignC > f.touchLimitC) {
       hazards.push({ code: 'SURFACE_ABOVE_TOUCH_LIMIT', message: `The bare pipe runs at about ${Math.round(f.bareDesignC)} °C, above the ${f.touchLimitC} °C touch limit (ASTM C1055 basis): it can burn on contact.` });
     }
     if (f.sweatNeed && f.bareDesignC < f.wetDewPointC) {
-      hazards.push({ code: 'SURFACE_BELOW_DEW_POINT', message: `The bare pipe runs at about ${formatNumber(Math.round(f.bareDesignC * 10) / 10)} °C, below the ${dew} °C dew point of the wettest hour: it will sweat or frost.` });
+      hazards.push({ code: 'SURFACE_BELOW_DEW_POINT', message: `The bare pipe runs at about ${formatNumber(Math.round(f.bareDesignC * 10) / 10)} °C, below the ${dewPointWords(f)} °C dew point of the wettest hour: it will sweat or frost.` });
     }
   }
   const n = f.uncoveredCount;
@@ -43,7 +47,7 @@ export function hazardsToday(f: HazardFacts): RunWarning[] {
     hazards.push({ code: 'BARE_FITTINGS_ABOVE_TOUCH_LIMIT', message: `${n} bare fitting${n === 1 ? '' : 's'} on this line run at about ${Math.round(f.bareDesignC)} °C, above the ${f.touchLimitC} °C touch limit: removable covers would stop burns.` });
   }
   if (n > 0 && f.sweatNeed && f.bareDesignC < f.wetDewPointC) {
-    hazards.push({ code: 'BARE_FITTINGS_BELOW_DEW_POINT', message: `${n} bare fitting${n === 1 ? '' : 's'} on this line sit at about ${formatNumber(Math.round(f.bareDesignC * 10) / 10)} °C, below the ${dew} °C dew point: they will drip onto whatever is below; removable covers with a vapor retarder stop it.` });
+    hazards.push({ code: 'BARE_FITTINGS_BELOW_DEW_POINT', message: `${n} bare fitting${n === 1 ? '' : 's'} on this line sit at about ${formatNumber(Math.round(f.bareDesignC * 10) / 10)} °C, below the ${dewPointWords(f)} °C dew point: they will drip onto whatever is below; removable covers with a vapor retarder stop it.` });
   }
   return hazards;
 }

@@ -305,7 +305,8 @@ function findSurface(run: ResolvedRun, guessSurfaceC: number | undefined): void 
   // Without a warm start, guess the surface from the resistances with k at the mean
   // line/air temperature and a typical still-air coefficient of 10 W/(m²·K).
   let guess = Number.NaN;
-  if (guessSurfaceC !== undefined) guess = guessSurfaceC;
+  // A warm start outside the bracket is no start at all: the guess from the resistances is used instead.
+  if (guessSurfaceC !== undefined && guessSurfaceC > lowC && guessSurfaceC < highC) guess = guessSurfaceC;
   else {
     const meanC = 0.5 * (fluidC + ambientC);
     let layersR = 0;
@@ -485,6 +486,16 @@ function secantRoot(guess: number, lowC: number, highC: number): number {
     x1 = x2;
   }
   return Number.NaN;
+}
+
+/**
+ * A warm start for a run solved again at other air: the surface kept at the same share of the
+ * drop from the line to the air as in the solve at the first air.
+ */
+export function startAtOtherAir(surfaceC: number, fluidC: number, firstAirC: number, otherAirC: number): number {
+  const drop = firstAirC - fluidC;
+  if (Math.abs(drop) < 1e-9) return otherAirC;
+  return fluidC + ((surfaceC - fluidC) / drop) * (otherAirC - fluidC);
 }
 
 /** The heat flow and surface temperature of a lean solve (reused; copy what you keep). */
