@@ -46,16 +46,19 @@ export function meanConductivity(curve: ConductivityCurve, t1C: number, t2C: num
  */
 export function temperatureAcrossLayer(
   curve: ConductivityCurve,
-  fromC: number,
+  fromTemperatureC: number,
   deltaIntegral: number,
-  lowC: number,
-  highC: number,
+  lowTemperatureC: number,
+  highTemperatureC: number,
 ): number {
+  // Unary plus makes each argument a plain double for the optimiser: a loop variable that starts
+  // from an argument as passed stays boxed, and each step of the loop below would allocate.
+  const fromC = +fromTemperatureC;
+  const lowC = +lowTemperatureC;
+  const highC = +highTemperatureC;
   if (curve.b === 0 && curve.c === 0) return fromC + deltaIntegral / curve.a;
   const start = conductivityIntegral(curve, fromC);
   const target = start + deltaIntegral;
-  // Numbers from the start: a variable that may also hold `undefined` is kept boxed, and each
-  // step of the loop below would allocate.
   let lo = fromC;
   let hi = fromC;
   if (deltaIntegral >= 0) {

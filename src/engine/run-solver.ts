@@ -178,11 +178,13 @@ const state: SolverState = {
   faceTemperatures: new Float64Array(MAX_LAYERS + 1),
 };
 
-function convectionAt(surfaceC: number): number {
+/** The convection coefficient at a trial surface, into `lastConvection` (a number returned from a call not inlined would be boxed). */
+function updateConvection(surfaceC: number): void {
   const st = state;
   if (st.hasFixedConvection) {
     st.lastNatural = 0;
-    return st.fixedConvection;
+    st.lastConvection = st.fixedConvection;
+    return;
   }
   const filmK = 0.5 * (surfaceC + st.ambientC) + ZERO_CELSIUS_K;
   const air = airPropertiesAt(filmK, st.air);
@@ -207,7 +209,7 @@ function convectionAt(surfaceC: number): number {
       ? 0.3 + 0.62 * Math.sqrt(reynolds) * air.crossFlowFactor * Math.pow(1 + Math.pow(reynolds / 282000, 0.625), 0.8)
       : 0.3;
   const forced = (forcedNusselt * air.conductivityWPerMK) / st.surfaceDiameterM;
-  return combineMixedConvection(forced, natural);
+  st.lastConvection = combineMixedConvection(forced, natural);
 }
 
 function heatAt(surfaceC: number): number {
@@ -217,7 +219,7 @@ function heatAt(surfaceC: number): number {
     st.lastRadiation = 0;
     return st.fixedCombined * st.perimeter * (surfaceC - st.ambientC);
   }
-  st.lastConvection = convectionAt(surfaceC);
+  updateConvection(surfaceC);
   st.lastRadiation = radiationCoefficientWPerM2K(st.run.surfaceEmittance, surfaceC + ZERO_CELSIUS_K, st.surroundingsK);
   const sensible = st.perimeter * (st.lastConvection * (surfaceC - st.ambientC) + st.lastRadiation * (surfaceC - st.surroundingsC));
   st.lastLatent = 0;
@@ -306,7 +308,7 @@ function findSurface(run: ResolvedRun, guessSurfaceC: number | undefined): void 
   // line/air temperature and a typical still-air coefficient of 10 W/(m²·K).
   let guess = Number.NaN;
   // A warm start outside the bracket is no start at all: the guess from the resistances is used instead.
-  if (guessSurfaceC !== undefined && guessSurfaceC > lowC && guessSurfaceC < highC) guess = guessSurfaceC;
+  if (guessSurfaceC !== undefined && guessSurfaceC > lowC && guessSurfaceC < highC) guess = +guessSurfaceC;
   else {
     const meanC = 0.5 * (fluidC + ambientC);
     let layersR = 0;
@@ -458,14 +460,15 @@ function impliedFluidSlope(surfaceC: number): number {
  */
 function secantRoot(guess: number, lowC: number, highC: number): number {
   const st = state;
-  let x0 = guess;
+  // Plain doubles for the loop (see temperatureAcrossLayer): no step allocates.
+  let x0 = +guess;
   let f0 = impliedFluidMinusActual(x0);
   st.secantTrials = 1;
   if (Math.abs(f0) <= IMPLIED_FLUID_TOLERANCE_K) return x0;
   const slope = impliedFluidSlope(x0);
   if (!(slope > 0 && Number.isFinite(slope))) return Number.NaN;
-  let lo = lowC;
-  let hi = highC;
+  let lo = +lowC;
+  let hi = +highC;
   if (f0 < 0) lo = x0;
   else hi = x0;
   let x1 = x0 - f0 / slope;

@@ -85,6 +85,8 @@ export function saturationPressureKPa(temperatureC: number): number {
 const POWERS_A = new Float64Array(64);
 const POWERS_B = new Float64Array(64);
 const INVERSE_POWERS_B = new Float64Array(64);
+const IDEAL_POWERS = new Float64Array(3);
+const IDEAL_INVERSE_POWERS = new Float64Array(7);
 
 function fillPowers(into: Float64Array, x: number, count: number): void {
   into[0] = 1;
@@ -114,10 +116,13 @@ function region1EnthalpyKJPerKg(temperatureK: number, pressureMPa: number): numb
 /** Specific enthalpy in region 2 (vapor), kJ/kg — R7-97(2012) eq. 15–17, Tables 10–11. */
 function region2EnthalpyKJPerKg(temperatureK: number, pressureMPa: number): number {
   const tau = 540 / temperatureK;
+  // The ideal-gas part's powers run from τ⁻⁶ to τ², from their own small tables.
+  fillPowers(IDEAL_POWERS, tau, 3);
+  fillPowers(IDEAL_INVERSE_POWERS, 1 / tau, 7);
   let idealTau = 0;
   for (let i = 0; i < REGION2_N0.length; i++) {
     const jj = REGION2_J0[i] as number;
-    idealTau += (REGION2_N0[i] as number) * jj * Math.pow(tau, jj - 1);
+    idealTau += (REGION2_N0[i] as number) * jj * power(IDEAL_POWERS, IDEAL_INVERSE_POWERS, jj - 1);
   }
   fillPowers(POWERS_A, pressureMPa, 25);
   fillPowers(POWERS_B, tau - 0.5, 58);
