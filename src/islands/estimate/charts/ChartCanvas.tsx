@@ -1,8 +1,8 @@
 /**
  * Draws a chart spec with chart.js. Loaded lazily: chart.js is the largest thing on the
  * results step and nobody needs it before the first result. Lines carry no point marks, and
- * their legend shows each as the line it is (solid or dashed); bars colored by hot and cold
- * lines get a legend entry per color.
+ * their legend shows each as the line it is, solid or dashed (lineSwatch); bars colored by hot
+ * and cold lines get a legend entry per color.
  */
 import {
   BarController,
@@ -32,6 +32,36 @@ function color(tone: Tone): string {
 
 const DASH = [6, 5];
 const TONE_WORDS: Partial<Record<Tone, string>> = { ember: 'hot lines', frost: 'cold lines' };
+
+/** A legend swatch drawn as its line is: the tone, solid or dashed (chart.js's own line swatch is always solid). */
+function lineSwatch(tone: Tone, dashed: boolean | undefined): HTMLCanvasElement {
+  const swatch = document.createElement('canvas');
+  swatch.width = 32;
+  swatch.height = 8;
+  const ctx = swatch.getContext('2d');
+  if (ctx) {
+    ctx.strokeStyle = color(tone);
+    ctx.lineWidth = 2.5;
+    ctx.setLineDash(dashed ? DASH : []);
+    ctx.beginPath();
+    ctx.moveTo(0, 4);
+    ctx.lineTo(32, 4);
+    ctx.stroke();
+  }
+  return swatch;
+}
+
+function lineLegend(spec: ChartSpec, chart: Chart): LegendItem[] {
+  return spec.series.map((s, datasetIndex) => ({
+    text: s.label,
+    pointStyle: lineSwatch(s.tone, s.dashed),
+    fillStyle: color(s.tone),
+    strokeStyle: color(s.tone),
+    lineWidth: 0,
+    hidden: !chart.isDatasetVisible(datasetIndex),
+    datasetIndex,
+  }));
+}
 
 /** A bar series colored per bar gets one legend entry per color it uses. */
 function barLegend(spec: ChartSpec, chart: Chart): LegendItem[] {
@@ -63,7 +93,7 @@ function options(spec: ChartSpec): ChartOptions<'bar' | 'line'> {
       legend: {
         position: 'bottom',
         labels: lines
-          ? { color: text, font, usePointStyle: true, pointStyle: 'line', pointStyleWidth: 32 }
+          ? { color: text, font, usePointStyle: true, generateLabels: (chart) => lineLegend(spec, chart) }
           : { color: text, font, boxWidth: 14, generateLabels: (chart) => barLegend(spec, chart) },
       },
       tooltip: {
