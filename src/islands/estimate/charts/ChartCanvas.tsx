@@ -31,21 +31,24 @@ function color(tone: Tone): string {
 }
 
 const DASH = [6, 5];
+/** A line swatch's size in the legend, px. */
+const SWATCH_WIDTH = 32;
+const SWATCH_HEIGHT = 8;
 const TONE_WORDS: Partial<Record<Tone, string>> = { ember: 'hot lines', frost: 'cold lines' };
 
 /** A legend swatch drawn as its line is: the tone, solid or dashed (chart.js's own line swatch is always solid). */
 function lineSwatch(tone: Tone, dashed: boolean | undefined): HTMLCanvasElement {
   const swatch = document.createElement('canvas');
-  swatch.width = 32;
-  swatch.height = 8;
+  swatch.width = SWATCH_WIDTH;
+  swatch.height = SWATCH_HEIGHT;
   const ctx = swatch.getContext('2d');
   if (ctx) {
     ctx.strokeStyle = color(tone);
     ctx.lineWidth = 2.5;
     ctx.setLineDash(dashed ? DASH : []);
     ctx.beginPath();
-    ctx.moveTo(0, 4);
-    ctx.lineTo(32, 4);
+    ctx.moveTo(0, SWATCH_HEIGHT / 2);
+    ctx.lineTo(SWATCH_WIDTH, SWATCH_HEIGHT / 2);
     ctx.stroke();
   }
   return swatch;
@@ -93,7 +96,7 @@ function options(spec: ChartSpec): ChartOptions<'bar' | 'line'> {
       legend: {
         position: 'bottom',
         labels: lines
-          ? { color: text, font, usePointStyle: true, generateLabels: (chart) => lineLegend(spec, chart) }
+          ? { color: text, font, usePointStyle: true, pointStyleWidth: SWATCH_WIDTH, generateLabels: (chart) => lineLegend(spec, chart) }
           : { color: text, font, boxWidth: 14, generateLabels: (chart) => barLegend(spec, chart) },
       },
       tooltip: {
