@@ -5,14 +5,13 @@ import {
   PIPE_MATERIALS,
   PIPE_STANDARDS,
   SERVICE_DEFAULTS,
-  SURFACES,
   serviceDefaults,
   type PipeSizeEntry,
   type PipeStandard,
   type ServiceId,
 } from '../../engine';
 import { formatQuantity, formatTemperature } from '../../lib/presentation/rounding';
-import { BARE_FINISH_CHOICES, FITTING_KIND_CHOICES } from '../../lib/presentation/pick-lists';
+import { BARE_FINISH_CHOICES, FITTING_KIND_CHOICES, JACKET_GROUPS, surfaceLabel } from '../../lib/presentation/pick-lists';
 import { displayUnit, formatForInput, type DisplayQuantity, type UnitSystem } from '../../lib/units-display';
 import { draftMarket, existingInsulationDefaults, pipeStandard, serviceCondition, type DraftValues } from './draft';
 import { ChoiceField, CheckField, NumberField, SureChoice, SelectField, TextField, useHasErrorUnder, useUnitSystem, type Option } from './fields';
@@ -29,14 +28,15 @@ interface Props {
   onRemove: () => void;
 }
 
-const JACKETS = SURFACES.filter((s) => s.kind === 'jacket');
+/** The covers, grouped by what a person sees on the pipe. */
+const JACKET_OPTION_GROUPS = JACKET_GROUPS.map((group) => ({ label: group.label, options: group.choices.map((c) => ({ value: c.value, label: c.label })) }));
 
 function materialName(id: string | undefined): string {
   return INSULATION_MATERIALS.find((m) => m.id === id)?.name ?? 'the usual material';
 }
 
 function jacketName(id: string | undefined): string {
-  return JACKETS.find((j) => j.id === id)?.name ?? 'the usual jacket';
+  return id ? surfaceLabel(id) : 'the usual cover';
 }
 
 /** Short names for the drop-down: what the pipe is first, its standard after. */
@@ -170,7 +170,6 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
     value: m.id,
     label: `${m.name} (${formatTemperature(m.serviceMinC, system)} to ${formatTemperature(m.serviceMaxC, system)})`,
   }));
-  const jacketOptions: Option[] = JACKETS.map((j) => ({ value: j.id, label: j.name }));
   const proposalHasError = useHasErrorUnder(`${base}.proposed`);
 
   const market = draftMarket(getValues('plant.countryCode'), system);
@@ -357,7 +356,7 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
             <div className="field-grid">
               <SelectField name={`${base}.current.material`} label="Insulation on it" options={insulationOptions} />
               <NumberField name={`${base}.current.thicknessM`} />
-              <SelectField name={`${base}.current.jacket`} label="Its outer covering" options={jacketOptions} />
+              <SelectField name={`${base}.current.jacket`} label="Its outer covering" groups={JACKET_OPTION_GROUPS} />
             </div>
           </fieldset>
         )}
@@ -389,7 +388,7 @@ export function RunCard({ index, count, headingRef, onDuplicate, onRemove }: Pro
               name={`${base}.proposed.jacket`}
               label="Outer covering"
               emptyLabel={`Usual: ${jacketName(service.defaultJacket)}`}
-              options={jacketOptions}
+              groups={JACKET_OPTION_GROUPS}
             />
             <CheckField name={`${base}.proposed.coverFittings`} label="Fit removable covers on valves and flanges" />
           </div>

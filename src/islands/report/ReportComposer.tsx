@@ -7,7 +7,8 @@
  */
 import { useEffect, useMemo, useRef, useState } from 'react';
 import ReportDocument from '../../components/report/ReportDocument';
-import { INSULATION_MATERIALS, JACKET_IDS, OPTION_KINDS, SURFACES, type OptionKind } from '../../engine';
+import { INSULATION_MATERIALS, OPTION_KINDS, type OptionKind } from '../../engine';
+import { JACKET_GROUPS } from '../../lib/presentation/pick-lists';
 import type { ApiFailure, ApiIssue } from '../../lib/api-client';
 import { openDraft, saveDraft, sendReport } from '../../lib/report-client';
 import { presentReport } from '../../lib/reports/present';
@@ -324,10 +325,14 @@ export default function ReportComposer({ leadId, reference, draft: initial, late
                         <span>Jacket</span>
                         <select id={id('jacket')} value={choice.jacket ?? ''} onChange={(e) => setChoice(run.id, { jacket: (e.target.value || undefined) as RunChoice['jacket'] })}>
                           <option value="">As suggested</option>
-                          {JACKET_IDS.map((jacket) => (
-                            <option key={jacket} value={jacket}>
-                              {SURFACES.find((s) => s.id === jacket)?.name ?? jacket}
-                            </option>
+                          {JACKET_GROUPS.map((group) => (
+                            <optgroup key={group.label} label={group.label}>
+                              {group.choices.map((jacket) => (
+                                <option key={jacket.value} value={jacket.value}>
+                                  {jacket.label}
+                                </option>
+                              ))}
+                            </optgroup>
                           ))}
                         </select>
                       </label>

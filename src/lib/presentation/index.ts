@@ -32,7 +32,9 @@ export {
   FITTING_KIND_CHOICES,
   JACKET_CHOICES,
   JACKET_GROUPS,
+  SURFACE_LABELS,
   choiceLabel,
+  surfaceLabel,
   type PickChoice,
   type PickGroup,
 } from './pick-lists';

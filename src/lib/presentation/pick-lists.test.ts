@@ -3,8 +3,8 @@
  * spelling.
  */
 import { describe, expect, it } from 'vitest';
-import { AREA_PRESET_IDS, BARE_FINISH_IDS, FITTING_TYPE_IDS, JACKET_IDS } from '../../engine';
-import { AREA_KIND_CHOICES, BARE_FINISH_CHOICES, FITTING_KIND_CHOICES, JACKET_CHOICES, JACKET_GROUPS } from './pick-lists';
+import { AREA_PRESET_IDS, BARE_FINISH_IDS, FITTING_TYPE_IDS, JACKET_IDS, SURFACE_IDS } from '../../engine';
+import { AREA_KIND_CHOICES, BARE_FINISH_CHOICES, FITTING_KIND_CHOICES, JACKET_CHOICES, JACKET_GROUPS, surfaceLabel } from './pick-lists';
 
 const values = (choices: readonly { value: string }[]) => choices.map((c) => c.value);
 
@@ -26,11 +26,17 @@ describe('pick-lists', () => {
     for (const group of JACKET_GROUPS) expect(group.choices.length).toBeGreaterThan(0);
   });
 
+  it('name every surface the engine reads, older per-material ones too, as the lists do', () => {
+    for (const id of SURFACE_IDS) expect(surfaceLabel(id)).not.toBe(id);
+    expect(surfaceLabel('aluminium-jacket')).toBe('Shiny aluminum sheet');
+    expect(surfaceLabel('bright-metal')).toBe('Shiny metal');
+  });
+
   it('are written in US spelling', () => {
     const words = [AREA_KIND_CHOICES, BARE_FINISH_CHOICES, JACKET_CHOICES, FITTING_KIND_CHOICES]
       .flat()
       .flatMap((c) => [c.label, c.note ?? ''])
-      .concat(JACKET_GROUPS.map((g) => g.label))
+      .concat(JACKET_GROUPS.map((g) => g.label), SURFACE_IDS.map(surfaceLabel))
       .join(' | ');
     expect(words).not.toMatch(/aluminium|colour|galvanis|grey|fibre|draught|vapour/i);
   });

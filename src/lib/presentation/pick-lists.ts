@@ -83,6 +83,24 @@ export const FITTING_KIND_CHOICES: readonly PickChoice<FittingTypeId>[] = [
   { value: 'steam-trap', label: 'Steam trap' },
 ];
 
+/** Surfaces the engine still reads in older runs (named by the pipe's material) but no list offers. */
+const OLDER_SURFACE_LABELS = {
+  'bare-carbon-steel': 'Bare steel, as it weathers',
+  'bare-stainless-steel': 'Bare stainless steel',
+  'bare-copper': 'Bare copper, tarnished',
+} as const;
+
+/** Every surface's label, bare finishes and covers alike: the one name a form, a report or a change list shows. */
+export const SURFACE_LABELS: Readonly<Record<SurfaceId, string>> = {
+  ...(Object.fromEntries([...BARE_FINISH_CHOICES, ...JACKET_CHOICES].map((c) => [c.value, c.label])) as Record<BareFinishId | JacketId, string>),
+  ...OLDER_SURFACE_LABELS,
+};
+
+/** The label of a surface or cover id; an id we have no words for is shown as given. */
+export function surfaceLabel(id: string): string {
+  return Object.hasOwn(SURFACE_LABELS, id) ? SURFACE_LABELS[id as SurfaceId] : id;
+}
+
 /** The label of a choice by its id, or the id itself when the list has no such choice. */
 export function choiceLabel(choices: readonly PickChoice[], id: string | undefined): string {
   return choices.find((choice) => choice.value === id)?.label ?? id ?? '';

@@ -20,7 +20,7 @@ import type { FindingKind, ReportComposition, RunChoice } from '../../schemas/re
 import type { UnitSystem } from '../units-display';
 import { cautions, type Caution } from '../cautions';
 import { reportFigures, QUICK_WIN_YEARS, type ReportFigures } from './figures';
-import { displayFormat, type DisplayFormat } from '../presentation';
+import { displayFormat, surfaceLabel, type DisplayFormat } from '../presentation';
 
 /** What a report is presented from. */
 export interface ReportSource {
@@ -144,8 +144,9 @@ function materialName(id: string): string {
   return INSULATION_MATERIALS.find((m) => m.id === id)?.name ?? id;
 }
 
+/** A surface or cover by the pick-lists' own name (the one the forms show). */
 function surfaceName(id: string): string {
-  return SURFACES.find((s) => s.id === id)?.name ?? id;
+  return surfaceLabel(id);
 }
 
 function serviceName(id: string): string {

@@ -4,8 +4,8 @@
  * the site-walk island write the same phrases. Figures are written by the formatter handed in
  * (the shared presentation's), never rounded here.
  */
-import { AREA_PRESETS, INSULATION_MATERIALS, PIPE_MATERIALS, SERVICE_DEFAULTS, SURFACES, type RunWarningCode } from '../../engine';
-import { displayFormat, type DisplayFormat, type UnitSystem } from '../presentation';
+import { INSULATION_MATERIALS, PIPE_MATERIALS, SERVICE_DEFAULTS, type RunWarningCode } from '../../engine';
+import { AREA_KIND_CHOICES, displayFormat, surfaceLabel, type DisplayFormat, type UnitSystem } from '../presentation';
 import type { InputChange, InputField, RunFigureChange, TotalFigureChange } from '../../schemas/revisions';
 
 /** The formatters a diff is written with: the shared presentation's, so a diff rounds as every other page. */
@@ -134,7 +134,7 @@ export function inputWords(change: InputChange, side: 'before' | 'after', f: Dif
       return v === null ? none : v === 'wet' ? 'Wet through' : v === 'crushed' ? 'Crushed' : 'Sound';
     }
     case 'jacket':
-      return name(SURFACES, change[side], none);
+      return change[side] === null ? none : surfaceLabel(change[side]);
     case 'fittings': {
       const v = change[side];
       if (!v) return none;
@@ -145,7 +145,7 @@ export function inputWords(change: InputChange, side: 'before' | 'after', f: Dif
     case 'room': {
       const v = change[side];
       if (!v) return none;
-      const preset = AREA_PRESETS.find((p) => v.areaId === p.id)?.name;
+      const preset = AREA_KIND_CHOICES.find((c) => v.areaId === c.value)?.label;
       const where = v.areaId.startsWith('walk-room-') ? 'measured on the walk' : v.areaId === 'indoor' ? 'indoors' : v.areaId === 'outdoor' ? 'outdoors' : (preset ?? v.areaId);
       return `${f.temperature(v.airTemperatureC)}, ${Math.round(v.relativeHumidityPercent)} % humidity, air at ${f.quantity(v.airSpeedMPerS, 'speed')} (${where})`;
     }

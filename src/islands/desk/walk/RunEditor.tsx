@@ -10,7 +10,7 @@ import { CheckInput, Choices, Counter, NumberInput, SelectInput, TextInput } fro
 import type { RunFigures } from './figures';
 import {
   INSULATION_OPTIONS,
-  JACKET_OPTIONS,
+  JACKET_OPTION_GROUPS,
   LAGGING_CONDITION_WORDS,
   LAGGING_STATES,
   PIPE_MATERIAL_OPTIONS,
@@ -265,7 +265,7 @@ export function RunEditor(props: RunEditorProps) {
                   onChange={(v) => set('current.condition', v)}
                   error={problems['current.condition']}
                 />
-                <SelectInput id={id('current.jacket')} label="Cover over the lagging" value={value('current.jacket') as string | undefined} options={JACKET_OPTIONS} onChange={(v) => set('current.jacket', v)} error={problems['current.jacket']} />
+                <SelectInput id={id('current.jacket')} label="Cover over the lagging" value={value('current.jacket') as string | undefined} options={[]} groups={JACKET_OPTION_GROUPS} onChange={(v) => set('current.jacket', v)} error={problems['current.jacket']} />
               </>
             ) : null}
           </fieldset>

@@ -103,11 +103,18 @@ export interface Option {
   label: string;
 }
 
+/** Options under a heading, drawn as an <optgroup>. */
+export interface OptionGroup {
+  readonly label: string;
+  readonly options: readonly Option[];
+}
+
 export function SelectInput({
   id,
   label,
   value,
   options,
+  groups = [],
   onChange,
   hint,
   error,
@@ -116,10 +123,13 @@ export function SelectInput({
   label: string;
   value: string | undefined;
   options: readonly Option[];
+  /** Options under headings (<optgroup>), after any ungrouped `options`. */
+  groups?: readonly OptionGroup[];
   onChange: (value: string) => void;
   hint?: ReactNode;
   error?: string | undefined;
 }) {
+  const all = [...options, ...groups.flatMap((group) => group.options)];
   return (
     <Frame id={id} label={label} hint={hint} error={error}>
       <select
@@ -130,11 +140,20 @@ export function SelectInput({
         aria-describedby={describedBy(hint ? `${id}-hint` : null, error ? `${id}-error` : null)}
         onChange={(event) => onChange(event.target.value)}
       >
-        {value === undefined || !options.some((o) => o.value === value) ? <option value="">Choose…</option> : null}
+        {value === undefined || !all.some((o) => o.value === value) ? <option value="">Choose…</option> : null}
         {options.map((option) => (
           <option key={option.value} value={option.value}>
             {option.label}
           </option>
+        ))}
+        {groups.map((group) => (
+          <optgroup key={group.label} label={group.label}>
+            {group.options.map((option) => (
+              <option key={option.value} value={option.value}>
+                {option.label}
+              </option>
+            ))}
+          </optgroup>
         ))}
       </select>
     </Frame>

@@ -4,19 +4,18 @@
  * units with the field's own label.
  */
 import {
-  AREA_PRESETS,
   INSULATION_MATERIALS,
   PIPE_MATERIALS,
   PIPE_STANDARDS,
   SERVICE_DEFAULTS,
-  SURFACES,
   type PipeSizeEntry,
   type PipeStandard,
   type RangeIssueParams,
 } from '../../../engine';
 import { displayUnit, type DisplayQuantity } from '../../../lib/units-display';
 import { formatNumber, formatQuantity, type UnitSystem } from '../../../lib/presentation';
-import type { Option } from './fields';
+import type { Option, OptionGroup } from './fields';
+import { AREA_KIND_CHOICES, JACKET_GROUPS } from '../../../lib/presentation/pick-lists';
 
 export const SERVICE_OPTIONS: Option[] = SERVICE_DEFAULTS.map((s) => ({ value: s.id, label: s.name }));
 
@@ -55,8 +54,12 @@ export function scheduleOptions(standard: PipeStandard | undefined, size: string
 
 export const PIPE_MATERIAL_OPTIONS: Option[] = PIPE_MATERIALS.map((m) => ({ value: m.id, label: m.name }));
 export const INSULATION_OPTIONS: Option[] = INSULATION_MATERIALS.map((m) => ({ value: m.id, label: m.name }));
-export const JACKET_OPTIONS: Option[] = SURFACES.filter((s) => s.kind === 'jacket').map((s) => ({ value: s.id, label: s.name }));
-export const ROOM_OPTIONS: Option[] = AREA_PRESETS.map((p) => ({ value: p.id, label: p.name }));
+/** Covers over the lagging, grouped by what one sees on the pipe (the estimate form's very list). */
+export const JACKET_OPTION_GROUPS: readonly OptionGroup[] = JACKET_GROUPS.map((group) => ({
+  label: group.label,
+  options: group.choices.map((c) => ({ value: c.value, label: c.label })),
+}));
+export const ROOM_OPTIONS: Option[] = AREA_KIND_CHOICES.map((c) => ({ value: c.value, label: c.label }));
 
 export const LAGGING_STATES = [
   { value: 'bare', label: 'Bare' },
