@@ -19,7 +19,7 @@ import {
   MAX_INSULATION_THICKNESS_M,
   MIN_FLUID_TEMPERATURE_C,
 } from './run-input';
-import { formatNumber, oneOf, quantity, text, type RangeIssueParams } from './schema-helpers';
+import { formatNumber, oneOf, quantity, ratingIssueParams, text, type RangeIssueParams } from './schema-helpers';
 import { SERVICE_IDS, serviceDefaults } from './services';
 
 const confidence = (label: string) => oneOf(label, ['measured', 'estimated', 'guessed'] as const);
@@ -462,6 +462,8 @@ export const plantInputSchema = z
           code: 'custom',
           path: ['runs', index, 'proposed', 'material'],
           message: `${material.name} is rated for ${material.serviceMinC} °C to ${material.serviceMaxC} °C; run "${run.label}" runs at ${formatNumber(Math.round(lineC))} °C. Propose a material rated for the line temperature.`,
+          // The rating crossed and the line's temperature, so a form can say it in the units it shows.
+          params: ratingIssueParams(material, lineC),
         });
       }
     });

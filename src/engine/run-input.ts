@@ -5,7 +5,7 @@ import { PIPE_MATERIAL_IDS } from './data/pipe-materials';
 import { PIPE_STANDARD_IDS } from './data/pipe-dimensions';
 import { SURFACE_IDS } from './data/surfaces';
 import { isEngineError } from './errors';
-import { formatNumber, oneOf, quantity, type RangeIssueParams } from './schema-helpers';
+import { formatNumber, oneOf, quantity, ratingIssueParams, type RangeIssueParams } from './schema-helpers';
 import {
   SATURATION_MIN_ABSOLUTE_PRESSURE_KPA,
   STEAM_MAX_ABSOLUTE_PRESSURE_KPA,
@@ -225,6 +225,7 @@ export const runInputSchema = z
           code: 'custom',
           path: ['insulation', 0, 'material'],
           message: `${material.name} is rated for ${material.serviceMinC} °C to ${material.serviceMaxC} °C; this line runs at ${formatNumber(lineC)} °C. Choose a material rated for the line temperature.`,
+          params: ratingIssueParams(material, lineC),
         });
       }
     }

@@ -53,6 +53,26 @@ export interface RangeIssueParams {
   /** The limit itself is refused (e.g. a thickness must be more than 0). */
   readonly exclusive: boolean;
   readonly unitSI: string;
+  /**
+   * The id of what holds the limit, when it is a rating rather than the field's own range
+   * (an insulation material's service temperatures): the field is a choice, the quantity
+   * the line it is weighed against.
+   */
+  readonly subject?: string;
+}
+
+/** The facts of a material refused for a line's temperature: its rating crossed, in °C. */
+export function ratingIssueParams(material: { id: string; serviceMinC: number; serviceMaxC: number }, lineC: number): RangeIssueParams {
+  const high = lineC > material.serviceMaxC;
+  return {
+    quantity: 'temperature',
+    limit: high ? 'max' : 'min',
+    limitSI: high ? material.serviceMaxC : material.serviceMinC,
+    givenSI: lineC,
+    exclusive: false,
+    unitSI: '°C',
+    subject: material.id,
+  };
 }
 
 const KIND_BY_UNIT: Readonly<Record<string, QuantityKind>> = {

@@ -9,6 +9,7 @@ import type { RangeIssueParams } from '../engine';
 import { formFieldAt, type FieldContext, type FormField } from './form-fields';
 import { displayUnit } from './units-display';
 import { DEFAULT_LOCALE, numberFormat, typeset, withUnit } from './presentation/rounding';
+import { materialWords } from './presentation/words';
 
 /** What is known of one refusal: its path, the engine's sentence, and what kind it is. */
 export interface FieldIssue {
@@ -79,11 +80,25 @@ function rangeMessage(field: FormField, params: RangeIssueParams, context: Field
 }
 
 /**
+ * A material refused for its line: its rating and the line's temperature in the units the
+ * form shows ("Flexible foam tube is rated up to 219 °F; this line runs at 230 °F.").
+ */
+function ratingMessage(subject: string, params: RangeIssueParams, context: FieldContext): string {
+  // A material's rating is a temperature, whatever the line is described by (a steam gauge reads pressure).
+  const unit = displayUnit('temperature', context.system);
+  const high = params.limit === 'max';
+  const bound = withUnit(written(unit.fromBase(params.limitSI), 0, high ? 'down' : 'up'), unit.symbol);
+  const line = withUnit(written(unit.fromBase(params.givenSI), 0), unit.symbol);
+  return `${materialWords(subject)} is rated ${high ? 'up to' : 'down to'} ${bound}; this line runs at ${line}. Choose a material rated for the line’s temperature.`;
+}
+
+/**
  * The sentence to show beside a field: the form's label, the box's unit, the limit rounded
  * toward what is allowed. Anything that is not one of the form's number fields keeps the
  * engine's own sentence.
  */
 export function fieldMessage(issue: FieldIssue, context: FieldContext): string {
+  if (issue.params?.subject !== undefined) return ratingMessage(issue.params.subject, issue.params, context);
   const field = formFieldAt(issue.path);
   if (!field) return issue.message;
   if (issue.params) return rangeMessage(field, issue.params, context);

@@ -36,6 +36,9 @@ export const rangeIssueParamsSchema = mirrorOf<RangeIssueParams>()(
     givenSI: z.number(),
     exclusive: z.boolean().check(z.describe('The limit itself is refused (a thickness must be more than 0).')),
     unitSI: z.string().check(z.describe('The SI unit of limitSI and givenSI, e.g. °C, kPa, m, h/yr.')),
+    subject: z
+      .optional(z.string())
+      .check(z.describe('Id of what holds the limit when it is a rating, not the field’s own range: an insulation material refused for the line’s temperature.')),
   }),
 );
 

@@ -34,6 +34,16 @@ describe('POST /api/estimate', () => {
     for (const issue of answer.error.issues) expect(issue.message).toMatch(/[A-Za-z].* .*/);
   });
 
+  it('refuses a proposed material too cold-rated for its line on the material, with the rating and the line in its params', async () => {
+    const plant = validSubmission().estimate;
+    const glycol = { ...plant.runs[0]!, id: 'glycol-1', service: 'glycol' as const, steamGaugePressureKPa: undefined, fluidTemperatureC: -45, proposed: { material: 'flexible-elastomeric' as const } };
+    const response = await postEstimate({ ...plant, runs: [glycol] });
+    expect(response.status).toBe(400);
+    const answer = (await response.json()) as { error: { issues: { path: string; params?: Record<string, unknown> }[] } };
+    const issue = answer.error.issues.find((i) => i.path === 'runs.0.proposed.material');
+    expect(issue?.params).toEqual({ quantity: 'temperature', limit: 'min', limitSI: -40, givenSI: -45, exclusive: false, unitSI: '°C', subject: 'flexible-elastomeric' });
+  });
+
   it('refuses a body that is not declared as JSON with 415', async () => {
     const response = await postEstimate(JSON.stringify(validSubmission().estimate), 'text/plain');
     expect(response.status).toBe(415);

@@ -240,6 +240,27 @@ describe('every number field of the estimate form is refused in its own words an
     expect(plain(fieldErrorsOf(values)['estimate.runs.0.lengthM']?.message)).toBe('Length must be a number in m; “ten” was given.');
   });
 
+  /**
+   * A proposed material that cannot take the line's temperature is refused on the material,
+   * in the unit the form shows: flexible foam tube is rated −40 °C to 104 °C (−40 °F to
+   * 219.2 °F, said as "up to 219 °F"), a line at 230 °F is 110 °C.
+   */
+  const ratings = [
+    { system: 'US', service: 'hot-water', lineC: 110, says: 'Flexible foam tube is rated up to 219 °F; this line runs at 230 °F. Choose a material rated for the line’s temperature.' },
+    { system: 'SI', service: 'hot-water', lineC: 110, says: 'Flexible foam tube is rated up to 104 °C; this line runs at 110 °C. Choose a material rated for the line’s temperature.' },
+    { system: 'US', service: 'glycol', lineC: -45, says: 'Flexible foam tube is rated down to −40 °F; this line runs at −49 °F. Choose a material rated for the line’s temperature.' },
+    { system: 'SI', service: 'glycol', lineC: -45, says: 'Flexible foam tube is rated down to −40 °C; this line runs at −45 °C. Choose a material rated for the line’s temperature.' },
+  ] as const;
+  for (const { system, service, lineC, says } of ratings) {
+    it(`estimate.runs.#.proposed.material in ${system}: a ${service} line at ${lineC} °C under flexible foam → “${says}”`, () => {
+      const values = draftWith('estimate.runs.#.fluidTemperatureC', system);
+      Object.assign(values.estimate.runs[0]!, { service, fluidTemperatureC: lineC, proposed: { coverFittings: true, material: 'flexible-elastomeric' } });
+      const errors = fieldErrorsOf(values);
+      expect(plain(errors['estimate.runs.0.proposed.material']?.message)).toBe(says);
+      expect(Object.keys(errors).filter((key) => key.startsWith('estimate'))).toEqual(['estimate.runs.0.proposed.material']);
+    });
+  }
+
   it('a server refusal (SI, with its range facts) is said again in the units the person typed in', () => {
     const values = draftWith('estimate.runs.#.steamGaugePressureKPa', 'US');
     const message = fieldMessage(
