@@ -9,7 +9,7 @@ import type { RangeIssueParams } from '../engine';
 import { formFieldAt, type FieldContext, type FormField } from './form-fields';
 import { displayUnit } from './units-display';
 import { DEFAULT_LOCALE, numberFormat, typeset, withUnit } from './presentation/rounding';
-import { materialWords } from './presentation/words';
+import { materialWords } from './presentation/material-words';
 
 /** What is known of one refusal: its path, the engine's sentence, and what kind it is. */
 export interface FieldIssue {

@@ -6,7 +6,7 @@
  * Each table is typed by the engine's id union, so a new service, material or cover in the
  * engine fails the typecheck until it has its words here.
  */
-import type { InsulationMaterialId, OptionKind, PlantWarning, RunEstimate, RunWarningCode, ServiceId, SurfaceId } from '../../engine';
+import type { OptionKind, PlantWarning, RunEstimate, RunWarningCode, ServiceId, SurfaceId } from '../../engine';
 
 /** What a line carries, as an owner says it. */
 export const SERVICE_WORDS: Readonly<Record<ServiceId, string>> = {
@@ -19,15 +19,7 @@ export const SERVICE_WORDS: Readonly<Record<ServiceId, string>> = {
   glycol: 'Glycol (30 % propylene)',
 };
 
-/** Insulation materials by what an installer would call them on site. */
-export const MATERIAL_WORDS: Readonly<Record<InsulationMaterialId, string>> = {
-  'glass-fibre': 'Fiberglass',
-  'mineral-wool': 'Mineral wool',
-  'calcium-silicate': 'Calcium silicate',
-  'cellular-glass': 'Cellular glass',
-  'flexible-elastomeric': 'Flexible foam tube',
-  polyisocyanurate: 'Rigid PIR foam',
-};
+export { MATERIAL_WORDS } from './material-words';
 
 /** What the outside of a run is: a bare pipe's metal, or the cover over its insulation. */
 export const SURFACE_WORDS: Readonly<Record<SurfaceId, string>> = {
@@ -94,10 +86,7 @@ export function serviceWords(id: string): string {
   return lookup(SERVICE_WORDS, id) ?? id;
 }
 
-/** The words for an insulation material id. */
-export function materialWords(id: string): string {
-  return lookup(MATERIAL_WORDS, id) ?? id;
-}
+export { materialWords } from './material-words';
 
 /** The words for a surface or cover id, lower case to sit inside a sentence. */
 export function surfaceWords(id: string): string {
