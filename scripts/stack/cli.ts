@@ -10,7 +10,7 @@ import { appUrl, databaseUrl, loadConfig, projectRoot, stateRoot, type StackConf
 import { ensureChromium } from './chromium.ts';
 import { ensurePdftotext } from './poppler.ts';
 import { StackError } from './errors.ts';
-import { clusterDir, clusterIsOutside, outsideClusterRoot, ensureDatabase, ensurePostgresInstalled, initCluster, startPostgres } from './postgres.ts';
+import { clusterDir, clusterIsOutside, outsideClusterRoot, ensureDatabase, ensurePostgresInstalled, initCluster, startPostgres, stopLeftoverCluster } from './postgres.ts';
 import {
   appEnvironment,
   mailFakeSpec,
@@ -246,6 +246,19 @@ function reset(): void {
   say(`wiped ${path.relative(projectRoot, dir)}; the next \`npm start\` begins with fresh demo data.`);
 }
 
+/** Stops a demo PostgreSQL left running by an `npm start` that did not shut down (killed, say). */
+async function stopDb(): Promise<void> {
+  const config = await loadConfig('demo');
+  const binDir = ensurePostgresInstalled();
+  const dataDir = clusterDir(config);
+  if (!existsSync(path.join(dataDir, 'postmaster.pid'))) {
+    say('the demo database is not running; nothing to stop.');
+    return;
+  }
+  stopLeftoverCluster(binDir, config);
+  say(existsSync(path.join(dataDir, 'postmaster.pid')) ? `could not stop the demo database in ${dataDir}; see its log in ${config.stateDir}.` : 'stopped the demo database.');
+}
+
 async function main(): Promise<void> {
   const command = process.argv[2];
   switch (command) {
@@ -257,8 +270,10 @@ async function main(): Promise<void> {
       return test();
     case 'reset':
       return reset();
+    case 'stop-db':
+      return stopDb();
     default:
-      throw new StackError(`Unknown command "${command}". Use start, dev, test or reset.`);
+      throw new StackError(`Unknown command "${command}". Use start, dev, test, reset or stop-db.`);
   }
 }
 
