@@ -656,28 +656,6 @@ function samplingTerms(f: TermsFacts): SampleTerms {
   };
 }
 
-/** An option as the full answer gives it. */
-function fullOption(o: WeighedOption): RunOption {
-  return {
-    kind: o.kind,
-    thicknessM: o.thicknessM,
-    installedCost: o.installedCost,
-    annualCost: o.annualCost,
-    simplePaybackYears: o.simplePaybackYears,
-    lifeCycleCost: o.lifeCycleCost,
-    meetsTouchLimit: o.meetsTouchLimit,
-    meetsDewPoint: o.meetsDewPoint,
-    material: o.material,
-    jacket: o.jacket,
-    lengthInsulatedM: o.lengthInsulatedM,
-    fittingCovers: o.fittingCovers,
-    annualHeatGJ: o.annualHeatGJ,
-    annualCo2Kg: o.annualCo2Kg,
-    annualCostSaving: o.annualCostSaving,
-    designSurfaceTemperatureC: o.designSurfaceTemperatureC,
-  };
-}
-
 /** An option as a summary answer gives it: the figures the screens show. */
 function summaryOption(o: WeighedOption): RunOption {
   return {
@@ -689,6 +667,21 @@ function summaryOption(o: WeighedOption): RunOption {
     lifeCycleCost: o.lifeCycleCost,
     meetsTouchLimit: o.meetsTouchLimit,
     meetsDewPoint: o.meetsDewPoint,
+  };
+}
+
+/** An option as the full answer gives it: the summary's figures and the rest of what was weighed. */
+function fullOption(o: WeighedOption): RunOption {
+  return {
+    ...summaryOption(o),
+    material: o.material,
+    jacket: o.jacket,
+    lengthInsulatedM: o.lengthInsulatedM,
+    fittingCovers: o.fittingCovers,
+    annualHeatGJ: o.annualHeatGJ,
+    annualCo2Kg: o.annualCo2Kg,
+    annualCostSaving: o.annualCostSaving,
+    designSurfaceTemperatureC: o.designSurfaceTemperatureC,
   };
 }
 

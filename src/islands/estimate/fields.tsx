@@ -23,6 +23,7 @@ import type { DraftValues } from './draft';
 import type { Confidence } from './confidence';
 import { fieldContextFrom } from './resolver';
 import { rememberTyped, typedFigure } from './store';
+import { PickOptions } from '../../components/PickOptions';
 
 export type Name = FieldPath<DraftValues>;
 
@@ -283,20 +284,7 @@ export function SelectField({ name, label, options = [], groups = [], hint, opti
         onBlur={field.onBlur}
       >
         {emptyLabel !== undefined && <option value="">{emptyLabel}</option>}
-        {options.map((option) => (
-          <option key={option.value} value={option.value}>
-            {option.label}
-          </option>
-        ))}
-        {groups.map((group) => (
-          <optgroup key={group.label} label={group.label}>
-            {group.options.map((option) => (
-              <option key={option.value} value={option.value}>
-                {option.label}
-              </option>
-            ))}
-          </optgroup>
-        ))}
+        <PickOptions options={options} groups={groups} />
       </select>
     </FieldFrame>
   );

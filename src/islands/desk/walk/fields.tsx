@@ -6,6 +6,7 @@
  */
 import { useId, useState, type ReactNode } from 'react';
 import { displayUnit, formatForInput, parseTyped, type DisplayQuantity, type UnitSystem } from '../../../lib/units-display';
+import { PickOptions } from '../../../components/PickOptions';
 
 function describedBy(...ids: (string | false | undefined | null)[]): string | undefined {
   const present = ids.filter((id): id is string => typeof id === 'string' && id !== '');
@@ -141,20 +142,7 @@ export function SelectInput({
         onChange={(event) => onChange(event.target.value)}
       >
         {value === undefined || !all.some((o) => o.value === value) ? <option value="">Choose…</option> : null}
-        {options.map((option) => (
-          <option key={option.value} value={option.value}>
-            {option.label}
-          </option>
-        ))}
-        {groups.map((group) => (
-          <optgroup key={group.label} label={group.label}>
-            {group.options.map((option) => (
-              <option key={option.value} value={option.value}>
-                {option.label}
-              </option>
-            ))}
-          </optgroup>
-        ))}
+        <PickOptions options={options} groups={groups} />
       </select>
     </Frame>
   );
